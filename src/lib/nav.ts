@@ -1,0 +1,14 @@
+/** The product's areas, in the order the header shows them. `href: null` marks an area still to come. */
+export interface NavItem {
+	label: string;
+	href: string | null;
+	description: string;
+}
+
+export const NAV_ITEMS: readonly NavItem[] = [
+	{ label: 'Projects', href: null, description: 'Lighting logs, shoot days and setups' },
+	{ label: 'Readings', href: null, description: 'Upload or type meter readings' },
+	{ label: 'Mired lab', href: null, description: 'Kelvin and mired arithmetic for teaching' },
+	{ label: 'Set tools', href: null, description: 'Flicker-safe shutter and power plan' },
+	{ label: 'Library', href: null, description: 'Fixture profiles and filters' }
+];
