@@ -1,0 +1,56 @@
+#!/usr/bin/env bash
+# `npm test`: install what is missing, start a private MariaDB (port 3308, its own data folder, a
+# fresh database) and mail catcher, then run the type check, unit and component tests, integration
+# tests against MariaDB, and browser tests in Debian's Chromium. Prints `N passed, N failed` last.
+set -uo pipefail
+. "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
+cd "$ROOT"
+
+ensure_debian_packages mariadb-server colord-data chromium
+ensure_node_modules
+
+export CHROMASLATE_TEST=1 NODE_ENV=test
+export MARIADB_DIR="$DATA_DIR/test-mariadb" DB_PORT="${TEST_DB_PORT:-3308}" DB_NAME=chromaslate_test DB_FRESH=1
+export MAIL_PORT="${TEST_MAIL_PORT:-2526}" MAIL_DIR="$DATA_DIR/test-mail"
+export AUTH_SECRET="test-secret-not-for-production-$(random_secret 12)"
+export TEST_APP_PORT="${TEST_APP_PORT:-3100}"
+export ORIGIN="http://127.0.0.1:$TEST_APP_PORT" AUTH_URL="http://127.0.0.1:$TEST_APP_PORT" AUTH_TRUST_HOST=true
+rm -rf "$MAIL_DIR"
+trap stop_services EXIT
+start_services mariadb mail
+
+RESULTS="$DATA_DIR/test-results"
+rm -rf "$RESULTS"; mkdir -p "$RESULTS"
+export TEST_RESULTS_DIR="$RESULTS"
+
+step() { printf '\n\033[1;36m== %s ==\033[0m\n' "$*"; }
+
+step "Type check (svelte-check)"
+if npx svelte-kit sync && npx svelte-check --tsconfig ./tsconfig.json --fail-on-warnings; then
+	echo '{"suite":"svelte-check","passed":1,"failed":0}' > "$RESULTS/check.json"
+else
+	echo '{"suite":"svelte-check","passed":0,"failed":1}' > "$RESULTS/check.json"
+fi
+
+step "Unit and component tests (Vitest)"
+npx vitest run --project unit --project component --reporter=default --reporter=json \
+	--outputFile.json="$RESULTS/vitest-unit.json"
+
+step "Integration tests against MariaDB (Vitest)"
+node --import tsx node_modules/knex/bin/cli.js --knexfile knexfile.ts migrate:latest
+# Knex imports the .ts migrations with Node's own loader, so the test workers need tsx.
+NODE_OPTIONS="--import tsx" npx vitest run --project integration --reporter=default --reporter=json \
+	--outputFile.json="$RESULTS/vitest-integration.json"
+
+step "Browser tests (Playwright on /usr/bin/chromium)"
+if npx vite build --logLevel warn; then
+	[ -f scripts/seed.ts ] && node --import tsx scripts/seed.ts >/dev/null
+	PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/playwright.json" npx playwright test --reporter=list,json
+else
+	echo '{"suite":"vite build","passed":0,"failed":1}' > "$RESULTS/build.json"
+fi
+
+# Stop the services first, so the count is the very last line printed.
+stop_services
+trap - EXIT
+node scripts/lib/count-results.mjs "$RESULTS" check.json vitest-unit.json vitest-integration.json playwright.json
