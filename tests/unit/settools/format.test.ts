@@ -1,0 +1,49 @@
+import { describe, expect, it } from 'vitest';
+import {
+	formatAmps,
+	formatAngle,
+	formatExposure,
+	formatHz,
+	formatPercent,
+	formatSeconds,
+	formatWatts,
+	trimmed
+} from '../../../src/lib/settools/format';
+
+describe('set tools formatting', () => {
+	it('angles keep two decimals at most', () => {
+		expect(formatAngle(172.8)).toBe('172.8°');
+		expect(formatAngle(143.856)).toBe('143.86°');
+		expect(formatAngle(144)).toBe('144°');
+		expect(formatAngle(NaN)).toBe('–°');
+		expect(trimmed(100, 2)).toBe('100');
+		expect(trimmed(0.5, 0)).toBe('1');
+	});
+
+	it('exposures read like a camera menu', () => {
+		expect(formatExposure(1 / 100)).toBe('1/100 s');
+		expect(formatExposure(1 / 50)).toBe('1/50 s');
+		expect(formatExposure(3 / 100)).toBe('1/33.3 s');
+		expect(formatExposure(1 / 47.952)).toBe('1/48 s');
+		expect(formatExposure(1.25)).toBe('1.25 s');
+		expect(formatExposure(0)).toBe('–');
+	});
+
+	it('beats and periods', () => {
+		expect(formatHz(0.12)).toBe('0.12 Hz');
+		expect(formatHz(4)).toBe('4 Hz');
+		expect(formatHz(100)).toBe('100 Hz');
+		expect(formatSeconds(1 / 0.12)).toBe('8.3 s');
+		expect(formatSeconds(0.25)).toBe('0.25 s');
+		expect(formatSeconds(1234.5)).toBe('1,235 s');
+		expect(formatSeconds(Infinity)).toBe('–');
+	});
+
+	it('watts, amps and shares', () => {
+		expect(formatWatts(1920)).toBe('1,920 W');
+		expect(formatWatts(NaN)).toBe('– W');
+		expect(formatAmps(16)).toBe('16 A');
+		expect(formatAmps(1000 / 120)).toBe('8.3 A');
+		expect(formatPercent(0.8)).toBe('80 %');
+	});
+});
