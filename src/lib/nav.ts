@@ -9,6 +9,6 @@ export const NAV_ITEMS: readonly NavItem[] = [
 	{ label: 'Projects', href: null, description: 'Lighting logs, shoot days and setups' },
 	{ label: 'Readings', href: null, description: 'Upload or type meter readings' },
 	{ label: 'Mired lab', href: '/lab', description: 'Kelvin and mired arithmetic for teaching' },
-	{ label: 'Set tools', href: null, description: 'Flicker-safe shutter and power plan' },
+	{ label: 'Set tools', href: '/tools', description: 'Flicker-safe shutter and power plan' },
 	{ label: 'Library', href: null, description: 'Fixture profiles and filters' }
 ];

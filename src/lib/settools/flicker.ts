@@ -235,6 +235,16 @@ export function analyseFlicker(fps: number, mainsHz: number): FlickerReport {
 	};
 }
 
+/**
+ * Standing notes beside every flicker answer (common practice): the rule above covers sources that
+ * follow the mains, not every driver, and only a test shot proves a setting.
+ */
+export const FLICKER_NOTES: readonly string[] = [
+	'LED drivers and ballasts vary. PWM dimming can pulse at its own rate, unrelated to the mains, and its roll bars are often invisible on set and cannot be fixed in post.',
+	"Electronic ballasts don't flicker; magnetic ballasts and discharge lamps do.",
+	'A test shot at the frame rate and shutter you will use, before the take, is the final word.'
+];
+
 /** The verdict on one shutter setting. */
 export interface ShutterCheck {
 	angleDeg: number;

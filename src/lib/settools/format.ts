@@ -53,3 +53,19 @@ export function formatAmps(amps: number): string {
 export function formatPercent(fraction: number): string {
 	return Number.isFinite(fraction) ? `${grouped.format(fraction * 100)} %` : '– %';
 }
+
+/**
+ * A number typed into a text field: spaces ignored, a decimal comma accepted ("23,976"), thousands
+ * separators not. Blank or unreadable text gives NaN, which the validators turn into a message.
+ */
+export function parseDecimal(text: string | null | undefined): number {
+	if (text == null) return NaN;
+	const s = String(text).trim().replace(/\s+/g, '').replace(',', '.');
+	if (s === '' || !/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(s)) return NaN;
+	return Number(s);
+}
+
+/** The text a field shows for a number: blank for NaN, otherwise up to 6 decimals, trimmed. */
+export function numberText(x: number): string {
+	return Number.isFinite(x) ? trimmed(x, 6) : '';
+}

@@ -7,6 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
+	FLICKER_NOTES,
 	FRAME_RATE_PRESETS,
 	analyseFlicker,
 	assertFlickerInput,
@@ -253,5 +254,15 @@ describe('presets', () => {
 	it('offers the usual frame rates and a high-speed one', () => {
 		const fps = FRAME_RATE_PRESETS.map((p) => p.fps);
 		for (const f of [23.976, 24, 25, 29.97, 30, 48, 50, 59.94, 60, 96, 100, 120, 240]) expect(fps).toContain(f);
+	});
+});
+
+describe('standing notes', () => {
+	it('common practice: drivers vary, electronic ballasts are steady, magnetic ones and discharge lamps flicker, test first', () => {
+		const text = FLICKER_NOTES.join(' ');
+		expect(text).toMatch(/PWM dimming/);
+		expect(text).toMatch(/Electronic ballasts don't flicker/);
+		expect(text).toMatch(/magnetic ballasts and discharge lamps do/);
+		expect(text).toMatch(/test shot/);
 	});
 });

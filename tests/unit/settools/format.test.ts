@@ -7,6 +7,8 @@ import {
 	formatPercent,
 	formatSeconds,
 	formatWatts,
+	numberText,
+	parseDecimal,
 	trimmed
 } from '../../../src/lib/settools/format';
 
@@ -45,5 +47,27 @@ describe('set tools formatting', () => {
 		expect(formatAmps(16)).toBe('16 A');
 		expect(formatAmps(1000 / 120)).toBe('8.3 A');
 		expect(formatPercent(0.8)).toBe('80 %');
+	});
+});
+
+describe('typed numbers', () => {
+	it('reads decimals with a point or a comma, blank and junk as NaN', () => {
+		expect(parseDecimal('23.976')).toBe(23.976);
+		expect(parseDecimal(' 23,976 ')).toBe(23.976);
+		expect(parseDecimal('24.')).toBe(24);
+		expect(parseDecimal('.5')).toBe(0.5);
+		expect(parseDecimal('-5')).toBe(-5);
+		expect(parseDecimal('1e3')).toBe(1000);
+		expect(parseDecimal('')).toBeNaN();
+		expect(parseDecimal('abc')).toBeNaN();
+		expect(parseDecimal('1/50')).toBeNaN();
+		expect(parseDecimal('1,000.5')).toBeNaN();
+		expect(parseDecimal(null)).toBeNaN();
+	});
+
+	it('shows numbers without float noise', () => {
+		expect(numberText(0.1 + 0.2)).toBe('0.3');
+		expect(numberText(23.976)).toBe('23.976');
+		expect(numberText(NaN)).toBe('');
 	});
 });
