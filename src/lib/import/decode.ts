@@ -5,6 +5,10 @@
  * Latin-1 is decoded as Windows-1252, as browsers do for the "latin1" label (WHATWG Encoding
  * Standard), so bytes 0x80–0x9F give € “ ” and friends rather than invisible control codes.
  *
+ * References:
+ *   WHATWG Encoding Standard, §5.2 Names and labels ("latin1" is windows-1252) and
+ *     index-windows-1252.txt; RFC 3629 UTF-8 (sequence lengths from the lead byte).
+ *
  * Works chunk by chunk: `write()` returns the text decoded so far, holding back an incomplete
  * UTF-8 sequence at the end of a chunk until the next one arrives.
  */
@@ -16,17 +20,27 @@ export const SNIFF_CHARS = 8192;
 /** Share of control characters above which text is treated as binary. */
 const CONTROL_SHARE = 0.1;
 
+/**
+ * Windows-1252 code points for bytes 0x80–0x9F (WHATWG Encoding Standard, index-windows-1252; the
+ * five unassigned bytes map to the same C1 code point). Written out because some runtimes' own
+ * "windows-1252" decoder is plain ISO-8859-1.
+ */
+const CP1252_80_9F = new Uint16Array([
+	0x20ac, 0x0081, 0x201a, 0x0192, 0x201e, 0x2026, 0x2020, 0x2021,
+	0x02c6, 0x2030, 0x0160, 0x2039, 0x0152, 0x008d, 0x017d, 0x008f,
+	0x0090, 0x2018, 0x2019, 0x201c, 0x201d, 0x2022, 0x2013, 0x2014,
+	0x02dc, 0x2122, 0x0161, 0x203a, 0x0153, 0x009d, 0x017e, 0x0178
+]);
+
 export function decodeLatin1(bytes: Uint8Array): string {
-	try {
-		return new TextDecoder('windows-1252').decode(bytes);
-	} catch {
-		// A runtime without the legacy single-byte decoders: plain ISO-8859-1.
-		let out = '';
-		for (let i = 0; i < bytes.length; i += 4096) {
-			out += String.fromCharCode(...bytes.subarray(i, i + 4096));
-		}
-		return out;
+	const codes = new Uint16Array(bytes.length);
+	for (let i = 0; i < bytes.length; i++) {
+		const b = bytes[i];
+		codes[i] = b >= 0x80 && b < 0xa0 ? CP1252_80_9F[b - 0x80] : b;
 	}
+	let out = '';
+	for (let i = 0; i < codes.length; i += 8192) out += String.fromCharCode(...codes.subarray(i, i + 8192));
+	return out;
 }
 
 /** Length of a complete UTF-8 prefix: an unfinished multi-byte sequence at the end is left out. */
