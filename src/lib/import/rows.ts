@@ -59,14 +59,10 @@ export const pointValueSchemas = {
 		// ANSI C78.377 uses CCT only within |Duv| ≤ 0.05 (common practice); typed ×1000 by mistake, it lands here.
 		duv: z.number().min(-0.05, outside('−0.05 to 0.05 (Duv is small, e.g. 0.003)')).max(0.05, outside('−0.05 to 0.05 (Duv is small, e.g. 0.003)'))
 	}),
-	tristimulus: z
-		.object({
+	tristimulus: z.object({
 			X: z.number().min(0, { error: 'negative' }).max(MAX_TRISTIMULUS, { error: 'implausibly large (over 1e9)' }),
-			Y: z.number().min(0, { error: 'negative' }).max(MAX_TRISTIMULUS, { error: 'implausibly large (over 1e9)' }),
+			Y: z.number().gt(0, { error: 'not above 0 (a light has Y > 0)' }).max(MAX_TRISTIMULUS, { error: 'implausibly large (over 1e9)' }),
 			Z: z.number().min(0, { error: 'negative' }).max(MAX_TRISTIMULUS, { error: 'implausibly large (over 1e9)' })
-		})
-		.superRefine((v, ctx) => {
-			if (v.X + v.Y + v.Z === 0) ctx.addIssue({ code: 'custom', path: ['Y'], message: 'X, Y and Z are all 0' });
 		}),
 	lux: z.number().min(0, { error: 'negative' }).max(MAX_LUX, { error: 'implausibly large (over 1,000,000 lux)' })
 } as const;

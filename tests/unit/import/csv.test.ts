@@ -353,13 +353,13 @@ describe('chromaticity, CCT + Duv and tristimulus layouts', () => {
 		expectRefused(() => parseReadings(csv([['cct'], ['3200']])), 'unrecognised', /cct is mapped but duv is not/);
 	});
 
-	it('reads X, Y, Z as tristimulus, and refuses negatives and all zeros', () => {
+	it('reads X, Y, Z as tristimulus, and refuses negatives and a zero Y', () => {
 		const report = parseReadings(csv([['X', 'Y', 'Z'], ['95.047', '100', '108.883'], ['-1', '2', '3'], ['0', '0', '0']]));
 		expect(report.format).toBe('tristimulus');
 		expect(report.readings[0]).toMatchObject({ kind: 'tristimulus', X: 95.047, Y: 100, Z: 108.883 });
 		expect(report.errors).toEqual([
 			{ row: 2, column: 'X', message: 'row 2: X = -1 is negative' },
-			{ row: 3, column: 'Y', message: 'row 3: X, Y and Z are all 0' }
+			{ row: 3, column: 'Y', message: 'row 3: Y = 0 is not above 0 (a light has Y > 0)' }
 		]);
 	});
 
