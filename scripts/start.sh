@@ -27,6 +27,8 @@ start_services mariadb mail
 [ -f "$DATA_DIR/auth-secret" ] || { random_secret 32 > "$DATA_DIR/auth-secret"; chmod 600 "$DATA_DIR/auth-secret"; }
 export AUTH_SECRET="${AUTH_SECRET:-$(cat "$DATA_DIR/auth-secret")}"
 export HOST="${HOST:-127.0.0.1}" PORT="${PORT:-3000}"
+# Uploads of up to 20 MB (adapter-node refuses bodies over 512 kB by default).
+export BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-25M}"
 export ORIGIN="${ORIGIN:-http://$HOST:$PORT}" AUTH_URL="${AUTH_URL:-http://$HOST:$PORT}" AUTH_TRUST_HOST=true
 
 say "Migrating the database ..."
