@@ -8,7 +8,7 @@ import { beforeEach, describe, expect, it } from 'vitest';
 import PowerPanel from '$lib/components/settools/PowerPanel.svelte';
 import { POWER_STORAGE_KEY } from '$lib/settools/storage';
 
-const setup = (storageKey: string | null = null) => ({ user: userEvent.setup(), ...render(PowerPanel, { storageKey }) });
+const setup = (storageKey: string | null = null) => ({ user: userEvent.setup({ delay: null }), ...render(PowerPanel, { storageKey }) });
 type User = ReturnType<typeof userEvent.setup>;
 
 async function addLight(user: User, name: string, watts: string, quantity = '1') {
@@ -22,7 +22,8 @@ async function addLight(user: User, name: string, watts: string, quantity = '1')
 
 beforeEach(() => localStorage.clear());
 
-describe('PowerPanel', () => {
+// Typing through user-event is slow on a shared machine; the limit is generous, not a speed claim.
+describe('PowerPanel', { timeout: 20_000 }, () => {
 	it('common practice: a North America 20 A circuit offers 1,920 W continuous', async () => {
 		const { user } = setup();
 		await user.click(screen.getByRole('button', { name: /North America 20 A/ }));

@@ -8,7 +8,7 @@ import { beforeEach, describe, expect, it } from 'vitest';
 import ShutterPanel from '$lib/components/settools/ShutterPanel.svelte';
 import { SHUTTER_STORAGE_KEY } from '$lib/settools/storage';
 
-const setup = (storageKey: string | null = null) => ({ user: userEvent.setup(), ...render(ShutterPanel, { storageKey }) });
+const setup = (storageKey: string | null = null) => ({ user: userEvent.setup({ delay: null }), ...render(ShutterPanel, { storageKey }) });
 const safeTable = () => screen.getByRole('table', { name: /flicker-free shutter angles/i });
 const verdict = () => screen.getByTestId('flicker-verdict');
 const check = () => screen.getByTestId('shutter-check');
@@ -21,7 +21,8 @@ async function typeInto(user: ReturnType<typeof userEvent.setup>, label: string 
 
 beforeEach(() => localStorage.clear());
 
-describe('ShutterPanel', () => {
+// Typing through user-event is slow on a shared machine; the limit is generous, not a speed claim.
+describe('ShutterPanel', { timeout: 20_000 }, () => {
 	it('derived from the common-practice rule: 24 fps on 50 Hz lists 172.8° as safe, and 180° flickers', async () => {
 		const { user } = setup();
 		await user.click(screen.getByRole('button', { name: '60 Hz' }));
@@ -115,5 +116,15 @@ describe('ShutterPanel', () => {
 		setup(SHUTTER_STORAGE_KEY);
 		expect(screen.getByRole('button', { name: '48 fps' })).toHaveAttribute('aria-pressed', 'true');
 		expect(within(safeTable()).getByText('144°')).toBeInTheDocument();
+	});
+});
+
+describe('ShutterPanel facts', { timeout: 20_000 }, () => {
+	it('common practice: always states the frame rate above which no shutter is safe (120 fps on 60 Hz)', async () => {
+		const { user } = setup();
+		await user.click(screen.getByRole('button', { name: '60 Hz' }));
+		const facts = screen.getByTestId('flicker-facts');
+		expect(facts).toHaveTextContent('No safe shutter above 120 fps');
+		expect(facts).toHaveTextContent('120 Hz');
 	});
 });

@@ -23,30 +23,30 @@ describe('set tools formatting', () => {
 	});
 
 	it('exposures read like a camera menu', () => {
-		expect(formatExposure(1 / 100)).toBe('1/100 s');
-		expect(formatExposure(1 / 50)).toBe('1/50 s');
-		expect(formatExposure(3 / 100)).toBe('1/33.3 s');
-		expect(formatExposure(1 / 47.952)).toBe('1/48 s');
-		expect(formatExposure(1.25)).toBe('1.25 s');
+		expect(formatExposure(1 / 100)).toBe('1/100\u00a0s');
+		expect(formatExposure(1 / 50)).toBe('1/50\u00a0s');
+		expect(formatExposure(3 / 100)).toBe('1/33.3\u00a0s');
+		expect(formatExposure(1 / 47.952)).toBe('1/48\u00a0s');
+		expect(formatExposure(1.25)).toBe('1.25\u00a0s');
 		expect(formatExposure(0)).toBe('–');
 	});
 
 	it('beats and periods', () => {
-		expect(formatHz(0.12)).toBe('0.12 Hz');
-		expect(formatHz(4)).toBe('4 Hz');
-		expect(formatHz(100)).toBe('100 Hz');
-		expect(formatSeconds(1 / 0.12)).toBe('8.3 s');
-		expect(formatSeconds(0.25)).toBe('0.25 s');
-		expect(formatSeconds(1234.5)).toBe('1,235 s');
+		expect(formatHz(0.12)).toBe('0.12\u00a0Hz');
+		expect(formatHz(4)).toBe('4\u00a0Hz');
+		expect(formatHz(100)).toBe('100\u00a0Hz');
+		expect(formatSeconds(1 / 0.12)).toBe('8.3\u00a0s');
+		expect(formatSeconds(0.25)).toBe('0.25\u00a0s');
+		expect(formatSeconds(1234.5)).toBe('1,235\u00a0s');
 		expect(formatSeconds(Infinity)).toBe('–');
 	});
 
 	it('watts, amps and shares', () => {
-		expect(formatWatts(1920)).toBe('1,920 W');
-		expect(formatWatts(NaN)).toBe('– W');
-		expect(formatAmps(16)).toBe('16 A');
-		expect(formatAmps(1000 / 120)).toBe('8.3 A');
-		expect(formatPercent(0.8)).toBe('80 %');
+		expect(formatWatts(1920)).toBe('1,920\u00a0W');
+		expect(formatWatts(NaN)).toBe('–\u00a0W');
+		expect(formatAmps(16)).toBe('16\u00a0A');
+		expect(formatAmps(1000 / 120)).toBe('8.3\u00a0A');
+		expect(formatPercent(0.8)).toBe('80\u00a0%');
 	});
 });
 
