@@ -13,7 +13,10 @@
  *     full −131 (or −137; "3200 K to 5500, 5600 or 5700 K"). Each gel's `miredRange` is the hull of
  *     its proportional nominal ± 15 × strength mired and the figures quoted for that strength.
  *   - Light loss: full CTO ≈ ⅔ stop (common practice); full CTB 1–2 stops (disputed; nominal here
- *     the middle, 1.5 stops); fractions proportionally (loss in stops is proportional to density).
+ *     the middle, 1.5 stops). A fraction keeps the sheet's clear-base loss (surface reflections,
+ *     CLEAR_BASE_TRANSMISSION = 0.9, ours: 0.15 stop) and a proportional share of the dye's loss
+ *     (density is proportional to strength): loss(f) = base + f·(full − base) (derived). So a
+ *     stack of thin sheets costs more light than one sheet of the same total strength, as it does.
  *   - Plus green and minus green: "a full plus green is about CC 30" (common practice), i.e. a peak
  *     density of 0.30 in the absorbed band (CC value = density × 100). Our own band designs are
  *     calibrated to that peak density; their effect in Duv and their light loss are derived from
@@ -76,6 +79,16 @@ export interface GelDefinition {
 	model: GelModel;
 }
 
+/** Transmission of a filter's clear base: surface and base losses, ours (about 8 % reflected at two faces, plus absorption). */
+export const CLEAR_BASE_TRANSMISSION = 0.9;
+/** The clear base's loss in stops: −log2(0.9) ≈ 0.152. */
+export const CLEAR_BASE_LOSS_STOPS = -Math.log2(CLEAR_BASE_TRANSMISSION);
+
+/** loss(f) = base + f·(full − base) (see header). */
+export function fractionLossStops(full: number, f: number): number {
+	return CLEAR_BASE_LOSS_STOPS + f * (full - CLEAR_BASE_LOSS_STOPS);
+}
+
 /** Nominal figures for full strength (common practice, see header). */
 export const FULL_CTO_MIRED = 159;
 export const FULL_CTB_MIRED = -131;
@@ -89,11 +102,17 @@ export const FULL_GREEN_PEAK_DENSITY = 0.3;
 /** Largest disagreement between quoted shifts of one strength (common practice, disputed). */
 export const MIRED_DISPUTE = 15;
 
-/** Our band designs (ours, not measured): centres and widths in nm. */
-export const MINUS_GREEN_BANDS: ReadonlyArray<Omit<AbsorptionBand, 'peakDensity'>> = [{ centre: 535, sigma: 38 }];
+/**
+ * Our band designs (ours, not measured): centres and widths in nm. Chosen by a coarse search over
+ * centre and width so that the filter's side effect on colour temperature is balanced between a
+ * 3200 K and a 5600 K source (it cannot vanish on both: the isotemperature lines turn along the
+ * locus), keeping a strong Duv effect. Minus green: one band in the green. Plus green: one band in
+ * the blue and one in the deep red, both at the same peak density.
+ */
+export const MINUS_GREEN_BANDS: ReadonlyArray<Omit<AbsorptionBand, 'peakDensity'>> = [{ centre: 560, sigma: 35 }];
 export const PLUS_GREEN_BANDS: ReadonlyArray<Omit<AbsorptionBand, 'peakDensity'>> = [
-	{ centre: 445, sigma: 30 },
-	{ centre: 640, sigma: 45 }
+	{ centre: 445, sigma: 35 },
+	{ centre: 660, sigma: 30 }
 ];
 
 const STRENGTHS: ReadonlyArray<{ key: string; f: number; name: string }> = [
@@ -127,13 +146,15 @@ function conversionGel(family: 'CTO' | 'CTB', s: (typeof STRENGTHS)[number]): Ge
 		strength: s.f,
 		miredShift: nominal,
 		miredRange: hull([nominal - spread, nominal + spread, ...quoted]),
-		lossStops: fullLoss * s.f,
+		lossStops: fractionLossStops(fullLoss, s.f),
 		lossRange:
-			family === 'CTB' ? { min: FULL_CTB_LOSS_RANGE.min * s.f, max: FULL_CTB_LOSS_RANGE.max * s.f } : null,
+			family === 'CTB'
+				? { min: fractionLossStops(FULL_CTB_LOSS_RANGE.min, s.f), max: fractionLossStops(FULL_CTB_LOSS_RANGE.max, s.f) }
+				: null,
 		basis:
 			family === 'CTO'
-				? 'common practice: full CTO ≈ +159 mired (6500 K → 3200 K), ≈ ⅔ stop; fractions proportional'
-				: 'common practice: full CTB ≈ −131 mired (3200 K → 5500 K), 1–2 stops (disputed); fractions proportional',
+				? 'common practice: full CTO ≈ +159 mired (6500 K → 3200 K), ≈ ⅔ stop; fractions: shift proportional, loss = base + share'
+				: 'common practice: full CTB ≈ −131 mired (3200 K → 5500 K), 1–2 stops (disputed); fractions: shift proportional, loss = base + share',
 		model: { kind: 'conversion', fromK: family === 'CTO' ? CTO_REFERENCE_K : CTB_REFERENCE_K }
 	};
 }
@@ -181,4 +202,34 @@ export const GEL_DEFINITIONS: readonly GelDefinition[] = Object.freeze([
 
 export function gelDefinition(id: string): GelDefinition | undefined {
 	return GEL_DEFINITIONS.find((g) => g.id === id);
+}
+
+/** Per-project changes to a built-in filter's nominal figures. */
+export interface GelOverride {
+	/** Mired shift; for CTO/CTB this rebuilds the modelled transmission for the new shift. */
+	miredShift?: number;
+	/** Light loss in stops on the filter's reference source. */
+	lossStops?: number;
+}
+export type GelOverrides = Readonly<Record<string, GelOverride>>;
+
+/** Checks an overrides map: known ids, finite numbers, a shift a filter can have. */
+export function validateGelOverrides(overrides: GelOverrides | undefined): void {
+	if (!overrides) return;
+	for (const [id, o] of Object.entries(overrides)) {
+		const def = gelDefinition(id);
+		if (!def) throw new RangeError(`Unknown filter id "${id}" in overrides.`);
+		if (o.miredShift !== undefined) {
+			if (!Number.isFinite(o.miredShift)) throw new RangeError(`Override for "${id}": mired shift must be a finite number.`);
+			if (def.model.kind === 'conversion' && 1e6 / def.model.fromK + o.miredShift <= 0) {
+				throw new RangeError(`Override for "${id}": a shift of ${o.miredShift} mired from ${def.model.fromK} K has no colour temperature.`);
+			}
+			if (def.model.kind !== 'conversion' && o.miredShift !== 0 && def.family === 'ND') {
+				throw new RangeError(`Override for "${id}": a neutral density filter has no mired shift.`);
+			}
+		}
+		if (o.lossStops !== undefined && (!Number.isFinite(o.lossStops) || o.lossStops < 0)) {
+			throw new RangeError(`Override for "${id}": light loss must be a number of stops ≥ 0.`);
+		}
+	}
 }
