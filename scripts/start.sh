@@ -22,7 +22,7 @@ cleanup() {
 trap cleanup EXIT
 trap 'exit 130' INT TERM
 
-start_services mariadb mail
+start_services mariadb mail s3
 
 [ -f "$DATA_DIR/auth-secret" ] || { random_secret 32 > "$DATA_DIR/auth-secret"; chmod 600 "$DATA_DIR/auth-secret"; }
 export AUTH_SECRET="${AUTH_SECRET:-$(cat "$DATA_DIR/auth-secret")}"

@@ -18,12 +18,13 @@ ensure_node_modules
 export CHROMASLATE_TEST=1 NODE_ENV=test
 export MARIADB_DIR="$DATA_DIR/test-mariadb" DB_PORT="${TEST_DB_PORT:-3308}" DB_NAME=chromaslate_test DB_FRESH=1
 export MAIL_PORT="${TEST_MAIL_PORT:-2526}" MAIL_DIR="$DATA_DIR/test-mail"
+export S3_PORT="${TEST_S3_PORT:-4569}" S3_DIR="$DATA_DIR/test-s3"
 export AUTH_SECRET="test-secret-not-for-production-$(random_secret 12)"
 export TEST_APP_PORT="${TEST_APP_PORT:-3100}"
 export ORIGIN="http://127.0.0.1:$TEST_APP_PORT" AUTH_URL="http://127.0.0.1:$TEST_APP_PORT" AUTH_TRUST_HOST=true
-rm -rf "$MAIL_DIR"
+rm -rf "$MAIL_DIR" "$S3_DIR"
 trap stop_services EXIT
-start_services mariadb mail
+start_services mariadb mail s3
 
 RESULTS="$DATA_DIR/test-results"
 rm -rf "$RESULTS"; mkdir -p "$RESULTS"

@@ -25,7 +25,7 @@ export async function call(handler: Handler, path: string, o: CallOptions = {}):
 		body = JSON.stringify(o.json);
 		if (!headers.has('content-type')) headers.set('content-type', 'application/json');
 	}
-	const request = new Request(url, { method: o.method ?? (body ? 'POST' : 'GET'), headers, body });
+	const request = new Request(url, { method: o.method ?? (body !== undefined ? 'POST' : 'GET'), headers, body });
 	const event = {
 		request,
 		url,
