@@ -1,7 +1,8 @@
 /**
  * The importer's entry points: a whole file (`parseReadings`), chunk by chunk
- * (`createReadingsParser`), already-split rows (`parseRows`, `parseRowsAsync`) and a look at the
- * first rows with a guessed column mapping (`previewReadings`).
+ * (`createReadingsParser`), already-split rows (`parseRows`, `parseRowsAsync`; `readRecords`
+ * splits without validating) and a look at the first rows with a guessed column mapping
+ * (`previewReadings`).
  *
  * Text is cut into records with papaparse. To read chunk by chunk, complete records are found
  * first by a small quote-aware scan (a newline inside a quoted cell does not end a record), and
@@ -153,6 +154,18 @@ class RecordSplitter {
 		const buf = this.buf;
 		let state = this.state;
 		let boundary = -1;
+		// Without quotes ahead (the usual case), records end at every newline: skip the scan.
+		if (state < 2 && buf.indexOf('"', this.scanned) < 0) {
+			boundary = buf.lastIndexOf('\n');
+			if (boundary >= this.scanned) {
+				const last = buf.length > boundary + 1 ? buf.charCodeAt(buf.length - 1) : -1;
+				state = last < 0 || last === d ? 0 : 1;
+			} else {
+				boundary = -1;
+				for (let i = this.scanned; i < buf.length; i++) state = buf.charCodeAt(i) === d ? 0 : 1;
+			}
+			this.scanned = buf.length;
+		}
 		for (let i = this.scanned; i < buf.length; i++) {
 			const c = buf.charCodeAt(i);
 			switch (state) {
@@ -284,6 +297,57 @@ export interface RowsOptions extends Omit<ParseOptions, 'delimiter'> {
 	delimiter?: Delimiter;
 	/** Recorded in the report. Default 'text'. */
 	encoding?: Encoding;
+	/** Per row (same index as `rows`), why the splitter could not read it cleanly; such rows are refused. */
+	problems?: readonly (string | undefined)[];
+	/** File-level warnings found while decoding (as `Records.warnings`), added to the report. */
+	warnings?: readonly string[];
+}
+
+export interface Records {
+	/** Every record, blank ones included, header first. */
+	rows: string[][];
+	/** Same index as `rows`: set where papaparse could not split the record cleanly. */
+	problems: (string | undefined)[];
+	delimiter: Delimiter;
+	encoding: Encoding;
+	warnings: string[];
+}
+
+/**
+ * Decoding and splitting only, no validation: what `parseReadings` does before it reads the
+ * columns. `parseRows(r.rows, r)` then gives the same report as `parseReadings`.
+ */
+export function readRecords(input: Uint8Array | ArrayBuffer | string, options: { limits?: Partial<ImportLimits>; delimiter?: Delimiter } = {}): Records {
+	const limits = limitsOf(options);
+	const data = input instanceof ArrayBuffer ? new Uint8Array(input) : input;
+	if (data.length === 0) throw new ImportError('empty', 'The file is empty.');
+	if (data.length > limits.maxBytes) throw tooLarge(limits.maxBytes);
+	const rows: string[][] = [];
+	const problems: (string | undefined)[] = [];
+	const splitter = new RecordSplitter(
+		(cells, problem) => {
+			rows.push(cells);
+			problems.push(problem);
+		},
+		options.delimiter,
+		assertNotBinary
+	);
+	const decoder = new ByteDecoder();
+	if (typeof data === 'string') {
+		if (data.includes('\u0000')) throw new ImportError('binary', 'The file looks like binary data, not a text CSV (it contains NUL bytes).');
+		splitter.feed(data.startsWith('\uFEFF') ? data.slice(1) : data);
+	} else {
+		splitter.feed(decoder.write(data));
+		splitter.feed(decoder.end());
+	}
+	splitter.end();
+	return {
+		rows,
+		problems,
+		delimiter: splitter.delimiter ?? ',',
+		encoding: typeof data === 'string' ? 'text' : decoder.encoding,
+		warnings: [...decoder.warnings]
+	};
 }
 
 function rowsBuilder(options: RowsOptions) {
@@ -300,13 +364,17 @@ function rowsBuilder(options: RowsOptions) {
 /** Rows split elsewhere (e.g. by papaparse in a browser worker): the first non-blank row is the header. */
 export function parseRows(rows: Iterable<string[]>, options: RowsOptions = {}): ParseReport {
 	const builder = rowsBuilder(options);
-	for (const r of rows) builder.push(r);
+	let i = 0;
+	for (const r of rows) builder.push(r, options.problems?.[i++]);
+	for (const w of options.warnings ?? []) builder.warn(w);
 	return builder.finish();
 }
 
 export async function parseRowsAsync(rows: AsyncIterable<string[]> | Iterable<string[]>, options: RowsOptions = {}): Promise<ParseReport> {
 	const builder = rowsBuilder(options);
-	for await (const r of rows) builder.push(r);
+	let i = 0;
+	for await (const r of rows) builder.push(r, options.problems?.[i++]);
+	for (const w of options.warnings ?? []) builder.warn(w);
 	return builder.finish();
 }
 

@@ -10,7 +10,9 @@ export {
 	parseRows,
 	parseRowsAsync,
 	previewReadings,
+	readRecords,
 	type ParseOptions,
+	type Records,
 	type PreviewResult,
 	type ReadingsParser,
 	type RowsOptions

@@ -12,6 +12,29 @@ export type NumberCell =
 	| { ok: false; reason: 'empty' | 'not_a_number' | 'not_finite' | 'decimal_comma'; text: string };
 
 /**
+ * The common case without allocating: a plain dot-decimal number, optionally padded with spaces or
+ * tabs. Returns NaN for anything else (empty, decimal comma, words, infinite), for which
+ * `parseNumberCell` gives the reason. Same acceptance as `parseNumberCell` where it returns a number.
+ */
+export function plainNumber(raw: string | undefined): number {
+	if (raw === undefined) return NaN;
+	// Let the engine parse, then rule out what Number() takes but a cell must not mean:
+	// blank (→ 0), 0x/0b/0o prefixes, Infinity, and anything starting oddly (left to the slow path).
+	const c0 = raw.charCodeAt(0);
+	if (!((c0 >= 48 && c0 <= 57) || c0 === 45 || c0 === 43 || c0 === 46 || c0 === 32 || c0 === 9)) return NaN;
+	const v = +raw;
+	if (v - v !== 0) return NaN; // NaN or ±Infinity
+	if (v === 0 && raw.trim() === '') return NaN;
+	let i = 0;
+	while (raw.charCodeAt(i) === 32 || raw.charCodeAt(i) === 9) i++;
+	if (raw.charCodeAt(i) === 48) {
+		const c = raw.charCodeAt(i + 1) | 32;
+		if (c === 120 || c === 98 || c === 111) return NaN;
+	}
+	return v;
+}
+
+/**
  * Reads one cell. `allowDecimalComma` is true only in `;`-delimited files, where `0,4476` means
  * 0.4476 (a dot is still accepted there too).
  */

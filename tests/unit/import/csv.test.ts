@@ -6,6 +6,7 @@ import {
 	parseRows,
 	parseRowsAsync,
 	previewReadings,
+	readRecords,
 	type ImportErrorCode,
 	type ParsedReading,
 	type ParseReport
@@ -602,6 +603,15 @@ describe('chunk by chunk, rows and preview', () => {
 			for (const row of rows) yield row;
 		}
 		expect(await parseRowsAsync(gen(), { delimiter: ';' })).toEqual(r);
+	});
+
+	it('splits without validating (readRecords), and parseRows on that equals parseReadings', () => {
+		for (const input of [latin1(csv([['label', 'x', 'y'], ['Façade', '0,3', '0,3'], ['"open', '1', '1']], ';')), file, 'x,y\n\n0.3,0.3\n']) {
+			const r = readRecords(input);
+			expect(parseRows(r.rows, r)).toEqual(parseReadings(input));
+		}
+		const r = readRecords('a;b\n1;2\n');
+		expect(r).toEqual({ rows: [['a', 'b'], ['1', '2']], problems: [undefined, undefined], delimiter: ';', encoding: 'text', warnings: [] });
 	});
 
 	it('previews the first rows with what was detected and a guessed mapping', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fmt, numberCellMessage, parseNumberCell } from '../../../src/lib/import/numbers';
+import { fmt, numberCellMessage, parseNumberCell, plainNumber } from '../../../src/lib/import/numbers';
 
 describe('parseNumberCell', () => {
 	it.each([
@@ -51,5 +51,25 @@ describe('parseNumberCell', () => {
 		expect(fmt(1.2000000000000002)).toBe('1.2');
 		expect(fmt(1e12)).toBe('1e+12');
 		expect(fmt(0)).toBe('0');
+	});
+});
+
+describe('plainNumber', () => {
+	it('agrees with parseNumberCell wherever it returns a number', () => {
+		const cases = ['0.31272', ' 42 ', '\t-0.5', '+3', '.5', '5.', '1e-3', '6.5E3', '', ' ', '.', '-', 'e5', '1e', '1e+', '0x10', '1,5', 'NaN', '1e999', '12 lux', '\u00a01', '1.2.3', '--1', '  0x1f', '0b1', '0o7', '-0x10', 'Infinity', '+Infinity', ' \t ', '1\u00a0', '\n2', '1_000', '0.0', '-0'];
+		for (const c of cases) {
+			const slow = parseNumberCell(c, false);
+			const fast = plainNumber(c);
+			if (Number.isNaN(fast)) continue;
+			expect(slow).toEqual({ ok: true, value: fast, decimalComma: false });
+		}
+		expect(plainNumber('0.31272')).toBe(0.31272);
+		expect(plainNumber(' 42 ')).toBe(42);
+		expect(plainNumber('1e999')).toBeNaN();
+		expect(plainNumber('0x10')).toBeNaN();
+		expect(plainNumber('  0b1')).toBeNaN();
+		expect(plainNumber(' \t ')).toBeNaN();
+		expect(plainNumber('0.0')).toBe(0);
+		expect(plainNumber(undefined)).toBeNaN();
 	});
 });
