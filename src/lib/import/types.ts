@@ -75,7 +75,7 @@ export interface ParseReport {
 }
 
 export interface ImportLimits {
-	/** Bytes; default 20 MB (20 × 1024 × 1024). */
+	/** Bytes (characters when the input is already text); default 20 MB (20 × 1024 × 1024). */
 	maxBytes: number;
 	/** Data rows after the header, blank ones not counted; default 50,000. */
 	maxRows: number;
