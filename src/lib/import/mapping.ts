@@ -233,7 +233,7 @@ export function guessMapping(header: string[], options: { decimalComma?: boolean
 			return;
 		}
 		const name = h.trim();
-		const unique = name !== '' && counts.get(name) === 1;
+		const unique = name !== '' && name.length <= 200 && counts.get(name) === 1;
 		columns.push({ column: unique ? name : i, meaning: m });
 	});
 	const result = mappingFormat(columns.map((c) => c.meaning));

@@ -54,6 +54,18 @@ describe('guessMapping', () => {
 		expect(g.unused).toEqual(['notes']);
 	});
 
+	it('names a very long header by position (a mapping names columns in at most 200 characters)', () => {
+		const g = guessMapping(['wavelength', 'r'.repeat(250), 'short']);
+		expect(g.format).toBe('long_spectral');
+		expect(g.mapping.columns).toEqual([
+			{ column: 'wavelength', meaning: 'wavelength' },
+			{ column: 1, meaning: 'spectrum' },
+			{ column: 'short', meaning: 'spectrum' }
+		]);
+		expect(columnMappingSchema.safeParse(g.mapping).success).toBe(true);
+		expect(guessMapping([' '.repeat(3), 'x', 'y']).mapping.columns).toHaveLength(2);
+	});
+
 	it('reads band headers with decimal commas only when allowed', () => {
 		expect(bandHeaderNm('380,5', true)).toBe(380.5);
 		expect(bandHeaderNm('380,5', false)).toBeNull();
