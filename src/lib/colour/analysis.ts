@@ -11,7 +11,7 @@
  */
 import { uv1960ToXy, uvPrimeToXy, xyToUv1960, xyToUvPrime } from './chromaticity';
 import { colourRenderingIndexAt } from './quality/cri';
-import { spectralSimilarityIndex } from './quality/ssi';
+import { spectralSimilarityIndex, ssiAgainstDefault } from './quality/ssi';
 import { validateSpectrum, type Spectrum } from './spectrum';
 import { CCTToUv } from './temperature/ohno2013';
 import { ohno2013Core } from './temperature/ohno2013';
@@ -84,8 +84,9 @@ export function analyzeSpectrum(
 		cri = { ra: r.Ra, r: r.R };
 	}
 	let ssi: number | null = null;
-	if (options.include?.ssi !== false && (options.ssiReference || t.cct_k !== null)) {
-		ssi = spectralSimilarityIndex(spectrum, options.ssiReference, { testCCT: t.cct_k ?? undefined });
+	if (options.include?.ssi !== false) {
+		if (options.ssiReference) ssi = spectralSimilarityIndex(spectrum, options.ssiReference);
+		else if (t.cct_k !== null) ssi = ssiAgainstDefault(spectrum, t.cct_k);
 	}
 	return { x: xy.x, y: xy.y, u_prime: uvp.u_prime, v_prime: uvp.v_prime, ...t, lux, cri, ssi, warnings };
 }

@@ -1,3 +1,3 @@
 /** Light quality indices: the public surface of the quality folder. References: see each file. */
 export { colourRenderingIndex, colourRenderingIndexAt, CRI_DC_LIMIT, type CRIResult } from './cri';
-export { spectralSimilarityIndex, ssiDefaultReference } from './ssi';
+export { spectralSimilarityIndex, ssiDefaultReference, ssiAgainstDefault } from './ssi';

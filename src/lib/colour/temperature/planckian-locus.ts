@@ -149,7 +149,7 @@ export function locusTable(): LocusTable {
  * Writes into `out` to avoid allocation on hot paths.
  */
 export function planckianUvAtLnT(lnT: number, out: LocusPoint = { u: 0, v: 0, du: 0, dv: 0 }): LocusPoint {
-	const t = locusTable();
+	const t = table ?? locusTable();
 	const f = (lnT - t.lnT0) / t.h;
 	let i = Math.floor(f);
 	if (i < 0) i = 0;
@@ -157,7 +157,7 @@ export function planckianUvAtLnT(lnT: number, out: LocusPoint = { u: 0, v: 0, du
 	const s = f - i;
 	if (s < 0 || s > 1) {
 		const k = s < 0 ? i : i + 1;
-		const d = (lnT - (t.lnT0 + k * t.h));
+		const d = lnT - (t.lnT0 + k * t.h);
 		out.u = t.u[k] + t.du[k] * d;
 		out.v = t.v[k] + t.dv[k] * d;
 		out.du = t.du[k];

@@ -12,6 +12,7 @@ export const DUV_VALID_MAX = 0.05;
 
 export function cctWarnings(CCT: number, Duv: number, outsideTable: boolean): string[] {
 	const w: string[] = [];
+	if (!outsideTable && CCT >= CCT_VALID_MIN_K && CCT <= CCT_VALID_MAX_K && Math.abs(Duv) <= DUV_VALID_MAX) return w;
 	const k = Math.round(CCT).toLocaleString('en-GB');
 	if (outsideTable) {
 		w.push(`the chromaticity lies beyond the end of the Planckian locus table (500–1,000,000 K): the CCT of ${k} K is not meaningful`);

@@ -60,3 +60,20 @@ describe('CIE 13.3-1995 colour rendering index', () => {
 		expect(() => colourRenderingIndex(s)).toThrow(SpectrumError);
 	});
 });
+
+describe('CRI fast path', () => {
+	it('precomputed reference sums equal direct summation of the reference spectrum (batch, 5 nm and 1 nm grids)', async () => {
+		const { colourRenderingIndexAt } = await import('../../../../src/lib/colour/quality/cri');
+		const f2 = cieIlluminant('F2');
+		const f2at1 = alignSpectrum(f2, 380, 780, 1).spectrum;
+		for (const s of [f2, f2at1]) {
+			for (const T of [600, 1000, 2222, 2856, 4000, 4999, 5000, 6504, 9000]) {
+				const fast = colourRenderingIndexAt(s, T);
+				const direct = colourRenderingIndexAt(s, T, { direct: true });
+				expect(Math.abs(fast.Ra - direct.Ra)).toBeLessThan(1e-6);
+				fast.R.forEach((r, i) => expect(Math.abs(r - direct.R[i])).toBeLessThan(1e-6));
+				expect(Math.abs(fast.DC - direct.DC)).toBeLessThan(1e-10);
+			}
+		}
+	});
+});

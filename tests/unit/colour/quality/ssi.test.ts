@@ -36,3 +36,15 @@ describe('Academy Spectral Similarity Index (2020)', () => {
 		expect(() => spectralSimilarityIndex(cieIlluminant('C'), r)).toThrow(/no positive value/);
 	});
 });
+
+describe('SSI fast paths', () => {
+	it('the tabulated Planckian and linear daylight references equal direct evaluation (batch, 1000–20000 K)', async () => {
+		const { ssiAgainstDefault } = await import('../../../../src/lib/colour/quality/ssi');
+		const test = cieIlluminant('F2');
+		for (const T of [1000, 1800, 2856, 3333, 3999, 4000, 5000, 6504, 12000, 20000]) {
+			const fast = ssiAgainstDefault(test, T, { round: false });
+			const direct = ssiAgainstDefault(test, T, { round: false, direct: true });
+			expect(Math.abs(fast - direct)).toBeLessThan(1e-7);
+		}
+	});
+});
