@@ -274,7 +274,7 @@ export function createReadingsParser(options: ParseOptions = {}): ReadingsParser
 			const b: ReadingsBuilder = builder;
 			// Decoder warnings (mixed encodings) can appear after the first records.
 			for (const w of decoder.warnings) b.warn(w);
-			return b.finish();
+			return b.finish({ encoding: mode === 'text' ? 'text' : decoder.encoding });
 		}
 	};
 }

@@ -150,7 +150,8 @@ export class ReadingsBuilder {
 		}
 	}
 
-	finish(): ParseReport {
+	/** `encoding` overrides the one given at the start (a stream may fall back to Latin-1 late). */
+	finish(overrides: { encoding?: Encoding } = {}): ParseReport {
 		if (!this.layout) throw new ImportError('empty', 'The file is empty.');
 		if (this.dataRows === 0) throw new ImportError('empty', 'The file has a header line but no data rows.');
 		if (this.layout.format === 'long_spectral') this.finishLong(this.layout);
@@ -161,7 +162,7 @@ export class ReadingsBuilder {
 		return {
 			format: this.layout.format,
 			delimiter: this.options.delimiter,
-			encoding: this.options.encoding,
+			encoding: overrides.encoding ?? this.options.encoding,
 			decimalComma: this.decimalComma,
 			readings: this.readings,
 			errors: this.errors,

@@ -571,6 +571,15 @@ describe('chunk by chunk, rows and preview', () => {
 		}
 	});
 
+	it('reports Latin-1 when the first non-UTF-8 byte arrives late in a stream, as for the whole file', () => {
+		const bytes = latin1(csv([['label', 'x', 'y'], ...Array.from({ length: 40 }, (_, i) => [`r${i}`, '0.3', '0.3']), ['Façade', '0.3', '0.3']]));
+		const whole = parseReadings(bytes);
+		expect(whole.encoding).toBe('latin1');
+		const p = createReadingsParser();
+		for (const c of chunks(bytes, [64])) p.write(c);
+		expect(p.end()).toEqual(whole);
+	});
+
 	it('decodes a multi-byte character split across chunks', () => {
 		const bytes = utf8(csv([['label', 'x', 'y'], ['Façade', '0.3', '0.3']]));
 		const at = bytes.indexOf(0xc3);
