@@ -8,7 +8,8 @@
  * the near-uniform space the distance is measured in, so the average sits in the middle of the
  * readings as the eye sees them. The alternative, 'XYZ', averages tristimulus values normalised to
  * Y = 1, which is the chromaticity of an additive mixture of the lights at equal luminance (what
- * overlapping sources would produce); it differs from the u'v' mean by a few 10⁻⁴ for close whites.
+ * overlapping sources would produce); it differs from the u'v' mean by under 10⁻⁴ for whites a
+ * few hundred kelvin apart and by about 0.001 for 3200 K with 5600 K (regression).
  *
  * The default tolerance, Δu'v' ≤ 0.002, is a trade rule of thumb for a mismatch that becomes
  * visible side by side (common practice); a production can set its own.
@@ -134,7 +135,7 @@ export interface Distance {
 	duv_prime: number;
 	/** Mired shift the reading needs to reach the target: M_target − M_reading (> 0: warmer, CTO; < 0: cooler, CTB). null without CCTs. */
 	mired: number | null;
-	/** Duv the reading needs to gain: Duv_target − Duv_reading (> 0: toward green, plus green; < 0: minus green). */
+	/** Duv the reading needs to gain: Duv_target − Duv_reading (> 0: toward green, plus green; < 0: minus green). null without CCTs. */
 	dDuv: number | null;
 	/** duv_prime ≤ target tolerance. */
 	within: boolean;
@@ -147,7 +148,8 @@ export function distance(reading: ChromaticityInput | ChromaticitySummary, targe
 	return {
 		duv_prime,
 		mired: r.mired !== null && target.mired !== null ? target.mired - r.mired : null,
-		dDuv: r.Duv !== null && target.Duv !== null ? target.Duv - r.Duv : null,
+		// Without a CCT (far from the locus) a Duv difference is no guide to a green/magenta fix.
+		dDuv: r.Duv !== null && target.Duv !== null && r.CCT !== null && target.CCT !== null ? target.Duv - r.Duv : null,
 		within: duv_prime <= target.tolerance
 	};
 }

@@ -145,8 +145,20 @@ function add(c: Counts, g: Gel, k: 1 | -1): void {
 	else if (g.family === 'ND') c.nd += k;
 }
 
+const stackCache = new Map<string, number[][]>();
+
 /** Every allowed multiset of gel indices up to maxGels (pruned: a forbidden stack has no allowed superset). */
 export function enumerateStacks(gels: Gel[], maxGels: number, allowOpposing: boolean): number[][] {
+	const key = `${maxGels}|${allowOpposing}|${gels.map((g) => g.family).join(',')}`;
+	const hit = stackCache.get(key);
+	if (hit) return hit;
+	const out = enumerate(gels, maxGels, allowOpposing);
+	if (stackCache.size > 64) stackCache.clear();
+	stackCache.set(key, out);
+	return out;
+}
+
+function enumerate(gels: Gel[], maxGels: number, allowOpposing: boolean): number[][] {
 	const out: number[][] = [[]];
 	const c: Counts = { CTO: 0, CTB: 0, plus: 0, minus: 0, nd: 0 };
 	const rec = (start: number, acc: number[]) => {
@@ -204,7 +216,9 @@ function transmissionOn(g: Gel, start: number, interval: number, n: number): Flo
 
 function uvpDistance(X: number, Y: number, Z: number, ut: number, vt: number): number {
 	const d = X + 15 * Y + 3 * Z;
-	return Math.hypot((4 * X) / d - ut, (9 * Y) / d - vt);
+	const du = (4 * X) / d - ut;
+	const dv = (9 * Y) / d - vt;
+	return Math.sqrt(du * du + dv * dv);
 }
 
 /** Samples whose source-weighted CMF values are below this share of the largest are left out of the search sums (exact sums follow for the proposals kept). */
@@ -351,17 +365,22 @@ function spectralSearch(S: Spectrum, gels: Gel[], stacks: number[][], target: Ta
 					Z += qz[k];
 				}
 			} else {
-				const key = L === 2 ? -1 - idx[0] : idx[0] * 4096 + idx[1];
-				if (key !== pairKey) {
-					pair.fill(1);
-					for (let j = 0; j < L - 1; j++) {
-						const t = p.taus[idx[j]];
-						for (let k = 0; k < m; k++) pair[k] *= t[k];
+				let front: Float64Array;
+				if (L === 2) {
+					front = p.taus[idx[0]];
+				} else {
+					// Stacks arrive grouped by their first two filters: form that product once per group.
+					const key = idx[0] * 4096 + idx[1];
+					if (key !== pairKey) {
+						const ta = p.taus[idx[0]];
+						const tb = p.taus[idx[1]];
+						for (let k = 0; k < m; k++) pair[k] = ta[k] * tb[k];
+						pairKey = key;
 					}
-					pairKey = key;
+					front = pair;
 				}
 				for (let k = 0; k < m; k++) {
-					const t = pair[k];
+					const t = front[k];
 					X += t * qx[k];
 					Y += t * qy[k];
 					Z += t * qz[k];
