@@ -1,0 +1,126 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb, db } from '$lib/server/db';
+import * as rateLimits from '$lib/server/db/rate-limits';
+import { closeMail } from '$lib/server/mail';
+import { countAttempt, forgetAttempts, LIMITS } from '$lib/server/auth/policy';
+import { checkPassword, requestPasswordReset, signUp } from '$lib/server/services/auth';
+import { makeUser, TEST_PASSWORD, uniqueEmail, uniqueIp } from './helpers/factories';
+
+beforeAll(async () => {
+	await db.migrate.latest();
+});
+afterAll(async () => {
+	closeMail();
+	await closeDb();
+});
+
+const ORIGIN = 'http://127.0.0.1:3999';
+
+describe('rate_limits table', () => {
+	it('counts hits per bucket and window, atomically under concurrency', async () => {
+		const bucket = rateLimits.bucketOf('test', uniqueEmail());
+		const now = new Date('2026-12-01T10:07:30Z');
+		const counts = await Promise.all(Array.from({ length: 12 }, () => rateLimits.hit(bucket, 600, now)));
+		expect(counts.map((c) => c.hits).sort((a, b) => a - b)).toEqual(Array.from({ length: 12 }, (_, i) => i + 1));
+		expect(counts[0].resetsAt.toISOString()).toBe('2026-12-01T10:10:00.000Z');
+		expect((await rateLimits.read(bucket, 600, now)).hits).toBe(12);
+		// The next window starts from zero.
+		expect((await rateLimits.hit(bucket, 600, new Date('2026-12-01T10:10:00Z'))).hits).toBe(1);
+	});
+
+	it('stores a hash of the bucket, never the address', async () => {
+		const email = uniqueEmail('private');
+		await rateLimits.hit(rateLimits.bucketOf('sign-in:address', email), 60);
+		const [rows] = await db.raw('SELECT bucket FROM rate_limits WHERE bucket = ?', [rateLimits.bucketOf('sign-in:address', email)]);
+		expect(rows[0].bucket).toMatch(/^[0-9a-f]{64}$/);
+		const [leak] = await db.raw('SELECT COUNT(*) AS n FROM rate_limits WHERE bucket LIKE ?', [`%${email}%`]);
+		expect(Number(leak[0].n)).toBe(0);
+	});
+
+	it('destroyExpired removes ended windows only', async () => {
+		const bucket = rateLimits.bucketOf('test', uniqueEmail('expiry'));
+		await rateLimits.hit(bucket, 60, new Date(Date.now() - 3600_000));
+		await rateLimits.hit(bucket, 60);
+		await rateLimits.destroyExpired();
+		const left = await db('rate_limits').where({ bucket });
+		expect(left).toHaveLength(1);
+	});
+});
+
+describe('countAttempt', () => {
+	it('allows the limit per address, then refuses with the time until the window ends', async () => {
+		const who = { address: uniqueEmail(), ip: uniqueIp() };
+		const { max, windowSeconds } = LIMITS['sign-in'].address;
+		const now = new Date('2026-12-01T10:00:05Z');
+		for (let i = 0; i < max; i++) expect((await countAttempt('sign-in', who, now)).allowed).toBe(true);
+		const refused = await countAttempt('sign-in', who, now);
+		expect(refused).toEqual({ allowed: false, retryAfterSeconds: windowSeconds - 5 });
+		// Another address from the same IP is still fine.
+		expect((await countAttempt('sign-in', { ...who, address: uniqueEmail() }, now)).allowed).toBe(true);
+		// Forgetting the address's attempts lets it in again.
+		await forgetAttempts('sign-in', who.address);
+		expect((await countAttempt('sign-in', who, now)).allowed).toBe(true);
+	});
+
+	it('refuses an IP over its limit whatever the address', async () => {
+		const ip = uniqueIp();
+		const { max } = LIMITS['magic-link'].ip;
+		const now = new Date();
+		for (let i = 0; i < max; i++) expect((await countAttempt('magic-link', { address: uniqueEmail(), ip }, now)).allowed).toBe(true);
+		expect((await countAttempt('magic-link', { address: uniqueEmail(), ip }, now)).allowed).toBe(false);
+	});
+
+	it('keeps the steps apart', async () => {
+		const who = { address: uniqueEmail(), ip: uniqueIp() };
+		for (let i = 0; i < LIMITS.reset.address.max + 1; i++) await countAttempt('reset', who);
+		expect((await countAttempt('reset', who)).allowed).toBe(false);
+		expect((await countAttempt('sign-in', who)).allowed).toBe(true);
+	});
+});
+
+describe('rate limits on the account steps', () => {
+	it('password sign-in: after the limit even the right password is refused, for a real or an unknown address alike', async () => {
+		const user = await makeUser();
+		const ghost = uniqueEmail('ghost');
+		const ip = uniqueIp();
+		for (let i = 0; i < LIMITS['sign-in'].address.max; i++) {
+			expect(await checkPassword(user.email, 'wrong wrong wrong', { origin: ORIGIN, ip })).toEqual({ ok: false, reason: 'invalid' });
+			expect(await checkPassword(ghost, 'wrong wrong wrong', { origin: ORIGIN, ip })).toEqual({ ok: false, reason: 'invalid' });
+		}
+		const real = await checkPassword(user.email, TEST_PASSWORD, { origin: ORIGIN, ip });
+		const fake = await checkPassword(ghost, TEST_PASSWORD, { origin: ORIGIN, ip });
+		expect(real).toMatchObject({ ok: false, reason: 'limited' });
+		expect(fake).toMatchObject({ ok: false, reason: 'limited' });
+	});
+
+	it('a successful sign-in clears the address count', async () => {
+		const user = await makeUser();
+		const ip = uniqueIp();
+		for (let i = 0; i < LIMITS['sign-in'].address.max - 1; i++) await checkPassword(user.email, 'typo typo typo', { origin: ORIGIN, ip });
+		expect((await checkPassword(user.email, TEST_PASSWORD, { origin: ORIGIN, ip })).ok).toBe(true);
+		for (let i = 0; i < LIMITS['sign-in'].address.max - 1; i++) await checkPassword(user.email, 'typo typo typo', { origin: ORIGIN, ip });
+		expect((await checkPassword(user.email, TEST_PASSWORD, { origin: ORIGIN, ip })).ok).toBe(true);
+	});
+
+	it('reset requests and sign-ups are limited per address', async () => {
+		const email = uniqueEmail('flood');
+		for (let i = 0; i < LIMITS.reset.address.max; i++) expect(await requestPasswordReset(email, { origin: ORIGIN, ip: uniqueIp() })).toEqual({ ok: true });
+		expect(await requestPasswordReset(email, { origin: ORIGIN, ip: uniqueIp() })).toMatchObject({ ok: false, reason: 'limited' });
+
+		const other = uniqueEmail('signups');
+		for (let i = 0; i < LIMITS['sign-up'].address.max; i++) {
+			expect(await signUp({ name: 'Flood', email: other, password: TEST_PASSWORD }, { origin: ORIGIN, ip: uniqueIp() })).toEqual({ ok: true });
+		}
+		expect(await signUp({ name: 'Flood', email: other, password: TEST_PASSWORD }, { origin: ORIGIN, ip: uniqueIp() })).toMatchObject({
+			ok: false,
+			reason: 'limited'
+		});
+	});
+
+	it('the counters live in the database, so they survive a new connection pool (a restart)', async () => {
+		const who = { address: uniqueEmail('restart'), ip: uniqueIp() };
+		for (let i = 0; i < LIMITS['sign-in'].address.max; i++) await countAttempt('sign-in', who);
+		await closeDb();
+		expect((await countAttempt('sign-in', who)).allowed).toBe(false);
+	});
+});
