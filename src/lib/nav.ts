@@ -6,7 +6,7 @@ export interface NavItem {
 }
 
 export const NAV_ITEMS: readonly NavItem[] = [
-	{ label: 'Projects', href: null, description: 'Lighting logs, shoot days and setups' },
+	{ label: 'Projects', href: '/projects', description: 'Lighting logs, shoot days and setups' },
 	{ label: 'Readings', href: null, description: 'Upload or type meter readings' },
 	{ label: 'Mired lab', href: '/lab', description: 'Kelvin and mired arithmetic for teaching' },
 	{ label: 'Set tools', href: '/tools', description: 'Flicker-safe shutter and power plan' },
