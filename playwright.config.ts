@@ -5,7 +5,7 @@ const port = Number(process.env.TEST_APP_PORT ?? 3100);
 // Debian's Chromium, never a downloaded browser; flags keep it off the (closed) network.
 export default defineConfig({
 	testDir: 'tests/e2e',
-	outputDir: '.data/test-results/playwright-artifacts',
+	outputDir: `${process.env.TEST_RESULTS_DIR ?? '.data/test-results'}/playwright-artifacts`,
 	fullyParallel: false,
 	workers: 1,
 	retries: 0,
