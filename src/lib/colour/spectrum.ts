@@ -8,7 +8,7 @@
  * References:
  *   CIE 15:2004 Colorimetry, 3rd ed., §7.2 (wavelength range 360/380–780/830 nm, summation interval).
  *   CIE 167:2005 Recommended practice for tabulating spectral data for use in colour computations
- *     (linear interpolation for measured spectra; end values held when extending a range).
+ *     (interpolation of spectral data; we use linear interpolation for measured spectra).
  */
 
 export interface Spectrum {
@@ -211,8 +211,8 @@ export function valueAt(s: Spectrum, nm: number, outside: 'zero' | 'hold' = 'zer
 }
 
 /**
- * Resamples s onto start…end (nm) at interval by linear interpolation (CIE 167:2005 for measured
- * spectra; no overshoot on line spectra). Outside s's range: zero (default) or the end values held.
+ * Resamples s onto start…end (nm) at interval by linear interpolation (no overshoot on line
+ * spectra). Outside s's range: zero (default) or the end values held.
  * Returns the spectrum and a note describing the change, or note null if the grid was already that.
  */
 export function alignSpectrum(

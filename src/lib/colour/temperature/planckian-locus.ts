@@ -5,7 +5,7 @@
  *
  * A table of u, v and their derivatives against ln T is built once (lazily) from 500 K to 10⁶ K at
  * 1 % steps in T; between nodes the locus is evaluated by cubic Hermite interpolation, whose error
- * (< 1e-12 in uv, checked in the tests against direct summation) is far below any published digit.
+ * (< 1e-10 in uv, checked in the tests against direct summation) is far below any published digit.
  * Both CCT methods (Ohno 2013, Robertson 1968) and the inverse use this one locus.
  *
  * References:
