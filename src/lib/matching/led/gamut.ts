@@ -95,6 +95,21 @@ export function locateInGamut(p: Point, points: readonly Point[], eps = 1e-10): 
 		}
 	}
 	if (inside) return { inside: true, nearest: { ...p }, distance: 0, edge: null };
+	const b = nearestOnBoundary(p, points, hull);
+	if (b.distance <= eps) return { inside: true, nearest: b.point, distance: 0, edge: null };
+	return { inside: false, nearest: b.point, distance: b.distance, edge: b.edge };
+}
+
+/** The nearest point of the hull's boundary to p (inside or out), and the edge (or vertex) it lies on. */
+export function nearestOnBoundary(
+	p: Point,
+	points: readonly Point[],
+	hull: number[] = convexHull(points)
+): { point: Point; distance: number; edge: [number, number] } {
+	if (hull.length === 1) {
+		const a = points[hull[0]];
+		return { point: { ...a }, distance: Math.hypot(p.u - a.u, p.v - a.v), edge: [hull[0], hull[0]] };
+	}
 	let best: { n: NearestOnSegment; a: number; b: number } | null = null;
 	const edges = hull.length === 2 ? 1 : hull.length;
 	for (let k = 0; k < edges; k++) {
@@ -104,7 +119,6 @@ export function locateInGamut(p: Point, points: readonly Point[], eps = 1e-10): 
 		if (!best || n.distance < best.n.distance) best = { n, a, b };
 	}
 	const b = best as { n: NearestOnSegment; a: number; b: number };
-	if (b.n.distance <= eps) return { inside: true, nearest: b.n.point, distance: 0, edge: null };
 	const edge: [number, number] = b.n.t <= 1e-12 ? [b.a, b.a] : b.n.t >= 1 - 1e-12 ? [b.b, b.b] : [b.a, b.b];
-	return { inside: false, nearest: b.n.point, distance: b.n.distance, edge };
+	return { point: b.n.point, distance: b.n.distance, edge };
 }

@@ -24,7 +24,7 @@ import { LED_CAUTION } from '../cautions';
 import { levelToDmx16, levelToDmx8 } from '../dmx';
 import { solveLinearProgramme } from '../lp';
 import { distance, isTargetWhite, resolveTargetWhite, type Distance, type TargetSpec, type TargetWhite } from '../target';
-import { locateInGamut, type Point } from './gamut';
+import { locateInGamut, nearestOnBoundary, type Point } from './gamut';
 import { resolveFixture, type FixtureProfile, type ResolvedFixture } from './profiles';
 
 export interface ChannelSetting {
@@ -194,8 +194,10 @@ export function aimFixture(f: ResolvedFixture, target: Point): AimResult {
 		const levels = maximiseOutput(f, rows, all);
 		if (mixXYZ(f, levels).Y > 1e-9 * f.totalY) return { levels, inGamut: true, aimed: target, gamutDistance: 0 };
 	}
-	// On the boundary: only channels on the supporting line of the nearest edge can take part.
-	const [a, b] = loc.edge ?? nearestEdge(points, target);
+	// On the boundary (or inside by a hair, where the LP found no light): only channels on the
+	// supporting line of the nearest edge can take part.
+	const boundary = loc.edge ? { edge: loc.edge, point: loc.nearest } : nearestOnBoundary(target, points);
+	const [a, b] = boundary.edge;
 	const levels = new Float64Array(f.channels.length);
 	if (a === b) {
 		levels[a] = 1;
@@ -208,7 +210,7 @@ export function aimFixture(f: ResolvedFixture, target: Point): AimResult {
 		const D = channelD(f);
 		const dir = { u: (pb.u - pa.u) / len, v: (pb.v - pa.v) / len };
 		const s = (p: Point) => (p.u - pa.u) * dir.u + (p.v - pa.v) * dir.v;
-		const sStar = s(loc.nearest);
+		const sStar = s(boundary.point);
 		const row = f.channels.map((_, i) => (on.includes(i) ? D[i] * (s(points[i]) - sStar) : 0));
 		const m = Math.max(...row.map(Math.abs)) || 1;
 		const lv = maximiseOutput(f, [row.map((x) => x / m)], on);
@@ -222,20 +224,8 @@ export function aimFixture(f: ResolvedFixture, target: Point): AimResult {
 		}
 		scaleToFull(levels);
 	}
-	return { levels, inGamut: false, aimed: loc.nearest, gamutDistance: loc.distance };
-}
-
-function nearestEdge(points: Point[], p: Point): [number, number] {
-	let best = 0;
-	let d = Infinity;
-	points.forEach((q, i) => {
-		const e = Math.hypot(q.u - p.u, q.v - p.v);
-		if (e < d) {
-			d = e;
-			best = i;
-		}
-	});
-	return [best, best];
+	const gap = Math.hypot(target.u - boundary.point.u, target.v - boundary.point.v);
+	return { levels, inGamut: gap <= 1e-9, aimed: boundary.point, gamutDistance: gap };
 }
 
 export function channelSettings(f: ResolvedFixture, levels: ArrayLike<number>): ChannelSetting[] {

@@ -94,6 +94,19 @@ describe('solveLedFix inside the gamut', () => {
 	});
 });
 
+describe('solveLedFix on the gamut edge', () => {
+	it('a red–green mix colour (on the hull edge) is met exactly with only those two channels', () => {
+		const f = resolveFixture(fourChannelFixture());
+		const edge = mixXYZ(f, [1, 0.5, 0, 0]);
+		const s = edge.X + edge.Y + edge.Z;
+		const r = solveLedFix(f, { x: edge.X / s, y: edge.Y / s }, { quality: false });
+		expect(r.distance.duv_prime).toBeLessThan(1e-9);
+		expect(r.channels[0].level).toBeCloseTo(1, 6);
+		expect(r.channels[1].level).toBeCloseTo(0.5, 6);
+		expect(r.channels[2].level + r.channels[3].level).toBeLessThan(1e-6);
+	});
+});
+
 describe('solveLedFix outside the gamut', () => {
 	it('finds the nearest reachable u′v′ (brute force over a 21⁴ grid of levels) and says so', () => {
 		const f = resolveFixture(fourChannelFixture());
