@@ -86,7 +86,10 @@ export function summariseXy(xy: { x: number; y: number }): ChromaticitySummary {
 			Duv = t.Duv;
 			CCT = t.CCT;
 			if (Math.abs(t.Duv) > DUV_LIMIT) {
-				warnings.push(`Duv ${t.Duv.toFixed(4)} is beyond ±${DUV_LIMIT}: this light is too far from white for a CCT to mean much.`);
+				// The colour core already warns about this; add our own words only if it did not.
+				if (!t.warnings.some((w) => /Duv/.test(w))) {
+					warnings.push(`Duv ${t.Duv.toFixed(4)} is beyond ±${DUV_LIMIT}: this light is too far from white for a CCT to mean much.`);
+				}
 				CCT = null;
 			}
 		}
