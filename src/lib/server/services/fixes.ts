@@ -1,0 +1,169 @@
+/**
+ * Fixes for one light: the gel stacks or LED levels that bring its latest reading to the setup's
+ * target white, predicted spectrally when the reading is a spectrum. Server side because the inputs
+ * (target, reading, fixture, project overrides) live in the database; the solving is all in
+ * $lib/matching.
+ */
+import { makeSpectrum, type Spectrum } from '$lib/colour';
+import {
+	genericFixture,
+	GENERIC_FIXTURES,
+	proposeGelsForSourceToTarget,
+	resolveTargetWhite,
+	solveLedFix,
+	solveLedQualityFix,
+	type GelOverrides,
+	type GelSource,
+	type TargetSpec,
+	type TargetWhite
+} from '$lib/matching';
+import { ApiError } from '$lib/server/api';
+import { db } from '$lib/server/db';
+import * as readings from '$lib/server/db/readings';
+import type { Reading } from '$lib/server/db/readings';
+import { parseJson } from '$lib/server/db/json';
+
+/** A setup's target white as stored in `setups.target`. */
+export type StoredTarget =
+	| { kind: 'reading'; readingId: number }
+	| { kind: 'cct_duv'; cct_k: number; duv: number }
+	| { kind: 'xy'; x: number; y: number }
+	| { kind: 'uv_prime'; u_prime: number; v_prime: number }
+	| { kind: 'illuminant'; name: string }
+	| { kind: 'average'; readingIds: number[] };
+
+export function readingSpectrum(r: Reading): Spectrum | null {
+	if (r.raw.kind !== 'spectral') return null;
+	const s = r.raw.spectrum;
+	return makeSpectrum(s.start, s.interval, s.values, s.scale);
+}
+
+/** The reading as a source for the solvers: its spectrum when it has one, else its chromaticity. */
+export function readingAsSource(r: Reading): GelSource {
+	const spectrum = readingSpectrum(r);
+	return spectrum ? { spectrum, label: r.label } : { x: r.computed.x, y: r.computed.y, label: r.label };
+}
+
+/** Resolves a stored target against the project's readings. Throws ApiError when it can't. */
+export async function resolveStoredTarget(projectId: number, stored: StoredTarget, tolerance: number): Promise<TargetWhite> {
+	let spec: TargetSpec;
+	switch (stored.kind) {
+		case 'reading': {
+			const r = await readings.read(projectId, stored.readingId, { includeDeleted: true });
+			if (!r) throw new ApiError(409, 'target_missing', 'The reading this setup targets no longer exists. Choose the target white again.');
+			const spectrum = readingSpectrum(r);
+			spec = spectrum ? { kind: 'reading', label: r.label, spectrum } : { kind: 'reading', label: r.label, x: r.computed.x, y: r.computed.y };
+			break;
+		}
+		case 'cct_duv':
+			spec = { kind: 'cct', CCT: stored.cct_k, Duv: stored.duv };
+			break;
+		case 'xy':
+			spec = { kind: 'xy', x: stored.x, y: stored.y };
+			break;
+		case 'uv_prime':
+			spec = { kind: 'uvPrime', u_prime: stored.u_prime, v_prime: stored.v_prime };
+			break;
+		case 'illuminant':
+			spec = { kind: 'illuminant', name: stored.name as never };
+			break;
+		case 'average': {
+			const list = await Promise.all(stored.readingIds.map((id) => readings.read(projectId, id, { includeDeleted: true })));
+			const found = list.filter((r): r is Reading => r !== null);
+			if (found.length === 0) throw new ApiError(409, 'target_missing', 'None of the readings this target averages exist any more.');
+			spec = { kind: 'average', readings: found.map((r) => ({ x: r.computed.x, y: r.computed.y })), space: 'uvPrime' };
+			break;
+		}
+		default:
+			throw new ApiError(409, 'target_invalid', 'This setup’s target white could not be read. Choose it again.');
+	}
+	try {
+		return resolveTargetWhite(spec, { tolerance });
+	} catch (e) {
+		throw new ApiError(409, 'target_invalid', `This setup’s target white could not be used: ${(e as Error).message}`);
+	}
+}
+
+/** A JSON-safe copy: typed arrays (spectra) are dropped, with a flag that there was one. */
+export function jsonSafe<T>(value: T): T {
+	return JSON.parse(
+		JSON.stringify(value, (key, v) => {
+			if (v instanceof Float64Array || v instanceof Float32Array) return undefined;
+			if (key === 'spectrum' && v && typeof v === 'object' && 'values' in v) return { start: v.start, interval: v.interval, bands: (v.values as ArrayLike<number>).length };
+			return v;
+		})
+	);
+}
+
+/** Which generic fixture profile suits a light's kind, when the light names none. */
+export function fixtureFor(light: { kind: string; fixture_profile: string | null }, requested?: string): string | null {
+	if (requested) return requested;
+	if (light.fixture_profile && GENERIC_FIXTURES.some((f) => f.id === light.fixture_profile)) return light.fixture_profile;
+	const byKind: Record<string, string> = {
+		'led-bicolour': 'generic-bicolour',
+		'led-rgb': 'generic-rgb',
+		'led-rgbw': 'generic-rgbw',
+		'led-seven': 'generic-seven',
+		'led-rgbacl': 'generic-seven'
+	};
+	return byKind[light.kind] ?? null;
+}
+
+export interface FixRequest {
+	lightId: number;
+	kind: 'gel' | 'led';
+	/** LED: a generic profile id; default from the light. */
+	fixtureId?: string;
+	/** LED: the brightest exact mix (default) or the best Ra/SSI at a minimum output. */
+	optimise?: 'output' | 'Ra' | 'SSI';
+	minOutput?: number;
+	/** Gels: the stack size (1–3, default 3) and how many to return. */
+	maxGels?: number;
+	top?: number;
+	includeNeutralDensity?: boolean;
+}
+
+async function lightContext(projectId: number, lightId: number) {
+	const light = await db('lights').where({ project_id: projectId, id: lightId }).whereNull('deleted_at').first();
+	if (!light) throw new ApiError(404, 'not_found', 'There is no such light in this project.');
+	const setup = await db('setups').where({ project_id: projectId, id: light.setup_id }).first();
+	const stored = parseJson<StoredTarget>(setup?.target);
+	if (!setup || !stored) throw new ApiError(409, 'no_target', 'Choose a target white for this setup first.');
+	const latest = (await readings.list(projectId, { lightId, sort: 'taken_at', order: 'desc', limit: 1 })).items[0];
+	if (!latest) throw new ApiError(409, 'no_reading', 'Take or type a reading of this light first.');
+	const target = await resolveStoredTarget(projectId, stored, Number(setup.target_tolerance ?? 0.002));
+	return { light, setup, target, latest };
+}
+
+export async function proposeFixes(projectId: number, req: FixRequest, overrides: GelOverrides = {}) {
+	const { light, setup, target, latest } = await lightContext(projectId, req.lightId);
+	const base = { lightId: light.id as number, setupId: setup.id as number, readingId: latest.id, readingLabel: latest.label };
+	try {
+		if (req.kind === 'gel') {
+			const result = proposeGelsForSourceToTarget(readingAsSource(latest), target, {
+				maxGels: req.maxGels ?? 3,
+				top: req.top ?? 5,
+				overrides,
+				includeNeutralDensity: req.includeNeutralDensity ?? false
+			});
+			return { ...base, kind: 'gel' as const, result: jsonSafe(result) };
+		}
+		const fixtureId = fixtureFor(light, req.fixtureId);
+		if (!fixtureId) throw new ApiError(400, 'no_fixture', 'Say which LED fixture profile this light uses (it has none).');
+		let profile;
+		try {
+			profile = genericFixture(fixtureId);
+		} catch {
+			throw new ApiError(400, 'no_fixture', `There is no fixture profile “${fixtureId}”.`);
+		}
+		const fix =
+			req.optimise && req.optimise !== 'output'
+				? solveLedQualityFix(profile, target, { metric: req.optimise, minOutput: req.minOutput ?? 0.8 })
+				: solveLedFix(profile, target);
+		return { ...base, kind: 'led' as const, result: jsonSafe(fix) };
+	} catch (e) {
+		if (e instanceof ApiError) throw e;
+		if (e instanceof RangeError) throw new ApiError(400, 'unsolvable', e.message);
+		throw e;
+	}
+}
