@@ -8,11 +8,8 @@ export const DEMO_PROJECT_NAME = 'Night Wash (demo)';
 
 export const DEMO_PROJECT_NOTES = [
 	'Invented for the demo: no real people, places, fixtures or productions.',
-	'A short drama shot over two nights in an invented all-night laundromat. The tube fluorescents in the',
-	'ceiling stay on (the owner will not have them switched off), a sodium streetlight comes in through the',
-	'front window, and a cool LED sign hangs over the counter. Day three is a studio day rebuilding the',
-	'counter corner, matched to the location.'
-].join('\n');
+	'A short drama shot over two nights in an invented all-night laundromat. The tube fluorescents in the ceiling stay on (the owner will not have them switched off), a sodium streetlight comes in through the front window, and a cool LED sign hangs over the counter. Day three is a studio day rebuilding the counter corner, matched to the location.'
+].join('\n\n');
 
 export async function seedDemoProject(ctx: SeedContext): Promise<void> {
 	const owner = need(ctx.users.owner, 'the demo owner');

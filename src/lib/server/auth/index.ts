@@ -52,8 +52,20 @@ export function userFromSession(session: unknown): SessionUser | null {
 	return { id: u.id, email: u.email, name: u.name ?? '', isAdmin: u.isAdmin === true };
 }
 
+/**
+ * Asks Auth.js for the session in-process, like `locals.auth()` does, but copies its cookies with
+ * their options intact (SvelteKit would otherwise add `Secure` to cookies that came back without it).
+ */
+async function readSession(event: RequestEvent): Promise<unknown> {
+	const cfg = prepared();
+	const url = createActionURL('session', event.url.protocol, event.request.headers, env, cfg);
+	const res = await Auth(new Request(url, { headers: { cookie: event.request.headers.get('cookie') ?? '' } }), { ...cfg, raw });
+	for (const c of res.cookies ?? []) event.cookies.set(c.name, c.value, { path: '/', ...c.options });
+	return res.body ?? null;
+}
+
 const putUserOnLocals: Handle = async ({ event, resolve }) => {
-	event.locals.user = sessionCookiePresent(event) ? userFromSession(await event.locals.auth()) : null;
+	event.locals.user = sessionCookiePresent(event) ? userFromSession(await readSession(event)) : null;
 	return resolve(event);
 };
 
