@@ -7,6 +7,8 @@ cd "$ROOT"
 
 ensure_debian_packages mariadb-server colord-data
 ensure_node_modules
+# Generates .svelte-kit/tsconfig.json, whose $lib path lets tsx run the seed and server scripts.
+npx svelte-kit sync >/dev/null
 
 APP_PID=""
 cleanup() {
@@ -33,6 +35,7 @@ export ORIGIN="${ORIGIN:-http://$HOST:$PORT}" AUTH_URL="${AUTH_URL:-http://$HOST
 
 say "Migrating the database ..."
 node --import tsx node_modules/knex/bin/cli.js --knexfile knexfile.ts migrate:latest >/dev/null
+node --import tsx scripts/recompute.ts
 if [ -f scripts/seed.ts ]; then
 	say "Seeding the demo (invented data) ..."
 	node --import tsx scripts/seed.ts > "$DATA_DIR/demo-sign-ins.txt"

@@ -14,6 +14,7 @@ want() { local s; for s in "${SUITES[@]}"; do [ "$s" = "$1" ] && return 0; done;
 
 ensure_debian_packages mariadb-server colord-data chromium
 ensure_node_modules
+npx svelte-kit sync >/dev/null
 
 export CHROMASLATE_TEST=1 NODE_ENV=test
 export MARIADB_DIR="$DATA_DIR/test-mariadb" DB_PORT="${TEST_DB_PORT:-3308}" DB_NAME=chromaslate_test DB_FRESH=1

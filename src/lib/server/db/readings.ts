@@ -153,8 +153,8 @@ export async function create(n: NewReading, trx: Knex | Knex.Transaction = db): 
  * callers find the rows again by `upload_id`.
  */
 export async function createMany(rows: NewReading[], trx: Knex.Transaction): Promise<number> {
-	for (let i = 0; i < rows.length; i += 250) {
-		await trx('readings').insert(rows.slice(i, i + 250).map(toRow));
+	for (let i = 0; i < rows.length; i += 1000) {
+		await trx('readings').insert(rows.slice(i, i + 1000).map(toRow));
 	}
 	return rows.length;
 }
