@@ -25,7 +25,8 @@
  *   Mired: M = 10⁶ / T with T in kelvin (common practice).
  */
 import { line, symbol, symbolCircle, symbolCross, symbolDiamond, symbolSquare, symbolStar, symbolTriangle, symbolWye } from 'd3-shape';
-import { CCTToXy, daylightLocusXy, spectralLocusXy, uvPrimeToXy, xyToUvPrime } from '../colour';
+import { daylightLocusXy, spectralLocusXy, uvPrimeToXy, xyToUvPrime } from '../colour';
+import { CCTDuvToXy } from './planckian';
 import { contains, planeScales, round, type Domain, type PlaneScales, type Plot, type Point } from './viewport';
 
 export type { Domain, Plot, PlaneScales, Point };
@@ -181,7 +182,7 @@ export const PLANCK_MAX_K = 25000;
 export function planckianLocus(
 	minK = PLANCK_MIN_K,
 	maxK = PLANCK_MAX_K,
-	stepMired = 5,
+	stepMired = 10,
 	Duv = 0,
 	alsoK: readonly number[] = REFERENCE_KELVIN
 ): Array<Point & { K: number }> {
@@ -194,7 +195,7 @@ export function planckianLocus(
 	mireds.sort((a, b) => b - a);
 	return mireds.map((m) => {
 		const K = 1e6 / m;
-		const p = CCTToXy(K, Duv);
+		const p = CCTDuvToXy(K, Duv);
 		return { K, x: p.x, y: p.y };
 	});
 }
@@ -208,8 +209,8 @@ export function planckianLocusPath(s: PlaneScales): string {
  * Duv > 0 lies above the locus (greenish), < 0 below (magenta).
  */
 export function duvBandPath(s: PlaneScales, duv = 0.006, minK = 1500, maxK = 20000): string {
-	const upper = planckianLocus(minK, maxK, 5, duv);
-	const lower = planckianLocus(minK, maxK, 5, -duv).reverse();
+	const upper = planckianLocus(minK, maxK, 10, duv);
+	const lower = planckianLocus(minK, maxK, 10, -duv).reverse();
 	return planePath([...upper, ...lower], s, true);
 }
 
@@ -257,17 +258,23 @@ export function isotemperatureTicks(
 	maxK = PLANCK_MAX_K
 ): IsotemperatureTick[] {
 	if (!(stepMired > 0)) throw new RangeError(`mired step must be > 0, got ${stepMired}`);
+	// Only temperatures whose part of the locus is in view (found from the drawn locus), so a zoomed
+	// view with a fine step does not compute ticks for the whole locus.
+	const seen = planckianLocus(minK, maxK).filter((p) => contains(domain, p, (domain.x1 - domain.x0) * 0.05));
+	if (seen.length === 0 && extraK.every((K) => !contains(domain, CCTDuvToXy(K, 0)))) return [];
+	const mLo = seen.length ? Math.max(1e6 / maxK, 1e6 / seen[seen.length - 1].K - 10) : Infinity;
+	const mHi = seen.length ? Math.min(1e6 / minK, 1e6 / seen[0].K + 10) : -Infinity;
 	const temps: Array<{ K: number; reference: boolean }> = [];
-	for (let m = Math.ceil(1e6 / maxK / stepMired) * stepMired; m <= 1e6 / minK + 1e-9; m += stepMired) {
+	for (let m = Math.ceil(mLo / stepMired) * stepMired; m <= mHi + 1e-9; m += stepMired) {
 		temps.push({ K: 1e6 / m, reference: false });
 	}
 	for (const K of extraK) temps.push({ K, reference: true });
 	const out: IsotemperatureTick[] = [];
 	for (const { K, reference } of temps) {
-		const at = CCTToXy(K, 0);
+		const at = CCTDuvToXy(K, 0);
 		if (!contains(domain, at)) continue;
-		const lo = project(s, CCTToXy(K, -span));
-		const hi = project(s, CCTToXy(K, span));
+		const lo = project(s, CCTDuvToXy(K, -span));
+		const hi = project(s, CCTDuvToXy(K, span));
 		// Even-mired labels beyond the magenta (Duv < 0) end, reference labels beyond the green end.
 		const [from, to] = reference ? [lo, hi] : [hi, lo];
 		const dx = to.x - from.x;
@@ -397,6 +404,39 @@ export function shapePath(shape: PointShape, area = 64): string {
 		symbolCache.set(key, d);
 	}
 	return d;
+}
+
+const polygonCache = new Map<string, Array<[number, number]> | null>();
+
+/**
+ * The mark as polygon vertices centred on (0, 0) (every shape but the circle is a polygon), or null
+ * for the circle: for drawing many marks on a canvas with plain moveTo/lineTo calls.
+ */
+export function shapePolygon(shape: PointShape, area = 64): Array<[number, number]> | null {
+	const key = `${shape}:${area}`;
+	if (polygonCache.has(key)) return polygonCache.get(key)!;
+	let out: Array<[number, number]> | null = null;
+	if (shape !== 'circle') {
+		// d3's symbol paths use M, L, h, v and Z only.
+		out = [];
+		let x = 0;
+		let y = 0;
+		for (const [, cmd, args] of shapePath(shape, area).matchAll(/([MLHVZmlhvz])([^MLHVZmlhvz]*)/g)) {
+			const n = (args.match(/-?\d*\.?\d+(?:e-?\d+)?/g) ?? []).map(Number);
+			if (cmd === 'M' || cmd === 'L') for (let i = 0; i + 1 < n.length; i += 2) out.push([(x = n[i]), (y = n[i + 1])]);
+			else if (cmd === 'h') for (const d of n) out.push([(x += d), y]);
+			else if (cmd === 'v') for (const d of n) out.push([x, (y += d)]);
+			else if (cmd === 'H') for (const d of n) out.push([(x = d), y]);
+			else if (cmd === 'V') for (const d of n) out.push([x, (y = d)]);
+		}
+	}
+	polygonCache.set(key, out);
+	return out;
+}
+
+/** Radius of the circle mark of `area` square units. */
+export function circleRadius(area = 64): number {
+	return Math.sqrt(area / Math.PI);
 }
 
 /** Axis ticks inside the domain: `count` or so round values per axis. */

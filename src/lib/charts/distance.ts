@@ -14,7 +14,8 @@
  *     doi:10.1080/15502724.2013.855138 (Duv: signed distance from the Planckian locus in uv).
  *   Mired: M = 10⁶ / T with T in kelvin (common practice).
  */
-import { CCTToXy, xyToCCT, xyToUvPrime } from '../colour';
+import { xyToCCT, xyToUvPrime } from '../colour';
+import { CCTDuvToXy } from './planckian';
 import { contains, domainAround, planeScales, round, type Domain, type PlaneScales, type Plot, type Point } from './viewport';
 
 /** Duv values of the grid lines (0 is the Planckian locus itself). */
@@ -79,7 +80,7 @@ export function duvLabel(Duv: number): string {
 }
 
 /**
- * Lines of constant Duv near `CCT` (kelvin): for each Duv, CCTToXy(T, Duv) → u′v′ for T from
+ * Lines of constant Duv near `CCT` (kelvin): for each Duv, CCTDuvToXy(T, Duv) → u′v′ for T from
  * `halfRangeMired` mired warmer to as many cooler, every `stepMired` mired.
  */
 export function duvGridLines(CCT: number, duvs: readonly number[] = DUV_GRID, halfRangeMired = 120, stepMired = 2): DuvLine[] {
@@ -89,7 +90,7 @@ export function duvGridLines(CCT: number, duvs: readonly number[] = DUV_GRID, ha
 	const lo = Math.max(40, m0 - halfRangeMired);
 	return duvs.map((Duv) => {
 		const points: UvPoint[] = [];
-		for (let m = hi; m >= lo - 1e-9; m -= stepMired) points.push(toPlane(CCTToXy(1e6 / m, Duv)));
+		for (let m = hi; m >= lo - 1e-9; m -= stepMired) points.push(toPlane(CCTDuvToXy(1e6 / m, Duv)));
 		return { Duv, points, label: duvLabel(Duv) };
 	});
 }
@@ -111,7 +112,7 @@ export function isotemperatureLines(CCT: number, stepMired = 10, halfRangeMired 
 	const first = Math.ceil(Math.max(40, m0 - halfRangeMired) / stepMired) * stepMired;
 	for (let m = first; m <= Math.min(1000, m0 + halfRangeMired) + 1e-9; m += stepMired) {
 		const K = 1e6 / m;
-		out.push({ K, mired: m, label: `${Math.round(K)} K`, from: toPlane(CCTToXy(K, -span)), to: toPlane(CCTToXy(K, span)) });
+		out.push({ K, mired: m, label: `${Math.round(K)} K`, from: toPlane(CCTDuvToXy(K, -span)), to: toPlane(CCTDuvToXy(K, span)) });
 	}
 	return out;
 }

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { CCTToXy, xyToCCT, xyToUvPrime } from '$lib/colour';
 import {
 	SHAPES,
+	circleRadius,
+	shapePolygon,
 	XY_FULL_DOMAIN,
 	arrowShape,
 	daylightLocus,
@@ -222,5 +224,22 @@ describe('arrows and marks', () => {
 		expect(shapeFor({ shape: 'blob' as never }, 2)).toBe(SHAPES[2]);
 		const paths = new Set(SHAPES.map((s) => shapePath(s)));
 		expect(paths.size).toBe(SHAPES.length);
+	});
+
+	it('gives canvas polygons of the same marks, each enclosing about its requested area (d3-shape symbols are sized by area)', () => {
+		expect(shapePolygon('circle', 64)).toBeNull();
+		expect(Math.PI * circleRadius(64) ** 2).toBeCloseTo(64, 9);
+		expect(shapePolygon('square', 64)).toEqual([[-4, -4], [4, -4], [4, 4], [-4, 4]]);
+		for (const shape of SHAPES.filter((s) => s !== 'circle')) {
+			const p = shapePolygon(shape, 64)!;
+			let a = 0;
+			for (let i = 0; i < p.length; i++) {
+				const [x0, y0] = p[i];
+				const [x1, y1] = p[(i + 1) % p.length];
+				a += x0 * y1 - x1 * y0;
+			}
+			expect(Math.abs(a) / 2).toBeGreaterThan(64 * 0.9);
+			expect(Math.abs(a) / 2).toBeLessThan(64 * 1.1);
+		}
 	});
 });

@@ -35,6 +35,7 @@ export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] 
 	const root = document.documentElement;
 	clone.removeAttribute('class');
 	clone.removeAttribute('style');
+	clone.setAttribute('style', `--u: ${getComputedStyle(svg).getPropertyValue('--u').trim() || '1'}`);
 	const vb = svg.viewBox.baseVal;
 	if (vb && vb.width) {
 		clone.setAttribute('width', String(vb.width));
@@ -46,7 +47,7 @@ export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] 
 				if (attr.name !== 'data-canvas-layer') el.removeAttribute(attr.name);
 				continue;
 			}
-			if (attr.value.includes('var(')) el.setAttribute(attr.name, resolveVars(attr.value, root));
+			if (attr.value.includes('var(')) el.setAttribute(attr.name, resolveVars(attr.value, svg));
 		}
 	}
 	const layer = clone.querySelector('[data-canvas-layer]');
