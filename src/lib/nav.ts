@@ -10,5 +10,5 @@ export const NAV_ITEMS: readonly NavItem[] = [
 	{ label: 'Readings', href: null, description: 'Upload or type meter readings' },
 	{ label: 'Mired lab', href: '/lab', description: 'Kelvin and mired arithmetic for teaching' },
 	{ label: 'Set tools', href: '/tools', description: 'Flicker-safe shutter and power plan' },
-	{ label: 'Library', href: null, description: 'Fixture profiles and filters' }
+	{ label: 'Library', href: '/library', description: 'Fixture profiles and filters' }
 ];

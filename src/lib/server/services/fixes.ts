@@ -6,13 +6,12 @@
  */
 import { makeSpectrum, type Spectrum } from '$lib/colour';
 import {
-	genericFixture,
 	GENERIC_FIXTURES,
 	proposeGelsForSourceToTarget,
 	resolveTargetWhite,
 	solveLedFix,
 	solveLedQualityFix,
-	type GelOverrides,
+	type FixtureProfile,
 	type GelSource,
 	type TargetSpec,
 	type TargetWhite
@@ -22,6 +21,7 @@ import { db } from '$lib/server/db';
 import * as readings from '$lib/server/db/readings';
 import type { Reading } from '$lib/server/db/readings';
 import { parseJson } from '$lib/server/db/json';
+import { solverLibrary } from '$lib/server/services/library';
 
 /** A setup's target white as stored in `setups.target`. */
 export type StoredTarget =
@@ -135,27 +135,35 @@ async function lightContext(projectId: number, lightId: number) {
 	return { light, setup, target, latest };
 }
 
-export async function proposeFixes(projectId: number, req: FixRequest, overrides: GelOverrides = {}) {
+export async function proposeFixes(projectId: number, req: FixRequest) {
 	const { light, setup, target, latest } = await lightContext(projectId, req.lightId);
+	// The project's library: its overrides of the built-in filters' figures, custom filters (its own
+	// and the shared ones) and uploaded fixture profiles.
+	const library = await solverLibrary(projectId);
 	const base = { lightId: light.id as number, setupId: setup.id as number, readingId: latest.id, readingLabel: latest.label };
 	try {
 		if (req.kind === 'gel') {
 			const result = proposeGelsForSourceToTarget(readingAsSource(latest), target, {
 				maxGels: req.maxGels ?? 3,
 				top: req.top ?? 5,
-				overrides,
+				overrides: library.overrides,
+				extraGels: library.extraGels,
 				includeNeutralDensity: req.includeNeutralDensity ?? false
 			});
 			return { ...base, kind: 'gel' as const, result: jsonSafe(result) };
 		}
-		const fixtureId = fixtureFor(light, req.fixtureId);
-		if (!fixtureId) throw new ApiError(400, 'no_fixture', 'Say which LED fixture profile this light uses (it has none).');
-		let profile;
-		try {
-			profile = genericFixture(fixtureId);
-		} catch {
-			throw new ApiError(400, 'no_fixture', `There is no fixture profile “${fixtureId}”.`);
+		// A fixture id resolves to a generic profile, then the project's, then a shared one. Asked
+		// for by id, it must exist; named by the light, an unknown name falls back to its kind.
+		let profile: FixtureProfile | null = null;
+		if (req.fixtureId) {
+			profile = await library.findFixture(req.fixtureId);
+			if (!profile) throw new ApiError(400, 'no_fixture', `There is no fixture profile “${req.fixtureId}”.`);
+		} else {
+			if (light.fixture_profile) profile = await library.findFixture(light.fixture_profile);
+			const byKind = profile ? null : fixtureFor({ kind: light.kind, fixture_profile: null });
+			if (byKind) profile = await library.findFixture(byKind);
 		}
+		if (!profile) throw new ApiError(400, 'no_fixture', 'Say which LED fixture profile this light uses (it has none).');
 		const fix =
 			req.optimise && req.optimise !== 'output'
 				? solveLedQualityFix(profile, target, { metric: req.optimise, minOutput: req.minOutput ?? 0.8 })
