@@ -124,3 +124,25 @@ describe('rate limits on the account steps', () => {
 		expect((await countAttempt('sign-in', who)).allowed).toBe(false);
 	});
 });
+
+describe('housekeeping', () => {
+	it('sweepExpired removes ended windows, stale tokens and expired sessions, and keeps live ones', async () => {
+		const { sweepExpired } = await import('$lib/server/auth/policy');
+		const { createKnexAdapter } = await import('$lib/server/auth/knex-adapter');
+		const user = await makeUser();
+		const adapter = createKnexAdapter(db);
+		const past = new Date(Date.now() - 2 * 86_400_000);
+		const future = new Date(Date.now() + 3600_000);
+		await adapter.createSession({ sessionToken: `sweep-old-${user.id}`, userId: String(user.id), expires: past });
+		await adapter.createSession({ sessionToken: `sweep-new-${user.id}`, userId: String(user.id), expires: future });
+		await adapter.createVerificationToken({ identifier: user.email, token: `sweep-old-${user.id}`, expires: past });
+		await adapter.createVerificationToken({ identifier: user.email, token: `sweep-new-${user.id}`, expires: future });
+		const oldBucket = rateLimits.bucketOf('sweep', uniqueEmail());
+		await rateLimits.hit(oldBucket, 60, past);
+		await sweepExpired();
+		expect(await adapter.getSessionAndUser(`sweep-old-${user.id}`)).toBeNull();
+		expect(await adapter.getSessionAndUser(`sweep-new-${user.id}`)).not.toBeNull();
+		expect(await db('verification_tokens').where({ identifier: user.email }).pluck('token')).toEqual([`sweep-new-${user.id}`]);
+		expect(await db('rate_limits').where({ bucket: oldBucket })).toHaveLength(0);
+	});
+});

@@ -2,7 +2,9 @@
  * How long links and sessions last, and how often each sign-in step may be tried. One place, so the
  * numbers shown in mail and messages are the numbers enforced.
  */
+import { db } from '../db';
 import * as rateLimits from '../db/rate-limits';
+import * as tokens from '../db/tokens';
 
 /** Lifetimes in seconds. */
 export const LIFETIMES = {
@@ -40,6 +42,7 @@ export type LimitCheck = { allowed: true } | { allowed: false; retryAfterSeconds
 /** Counts one attempt of `step` for the address and the IP; refused if either is over its limit. */
 export async function countAttempt(step: LimitedStep, who: { address: string; ip: string }, now = new Date()): Promise<LimitCheck> {
 	const { address, ip } = LIMITS[step];
+	if (Math.random() < HOUSEKEEPING_CHANCE) void sweepExpired(now).catch((e) => console.error('[auth] housekeeping failed:', e));
 	const checks = await Promise.all([
 		rateLimits.hit(rateLimits.bucketOf(`${step}:address`, who.address), address.windowSeconds, now).then((c) => ({ c, max: address.max })),
 		rateLimits.hit(rateLimits.bucketOf(`${step}:ip`, who.ip), ip.windowSeconds, now).then((c) => ({ c, max: ip.max }))
@@ -60,4 +63,15 @@ export function describeWait(seconds: number): string {
 	if (seconds < 90) return 'a minute';
 	const minutes = Math.ceil(seconds / 60);
 	return minutes < 90 ? `about ${minutes} minutes` : `about ${Math.round(minutes / 60)} hours`;
+}
+
+/** About one attempt in 200 also sweeps out what has expired, so no scheduler is needed. */
+const HOUSEKEEPING_CHANCE = 1 / 200;
+
+/** Deletes ended rate-limit windows, expired sign-in links and tokens, and expired sessions. */
+export async function sweepExpired(now = new Date()): Promise<void> {
+	await rateLimits.destroyExpired(now);
+	await tokens.destroyExpired(new Date(now.getTime() - 86_400_000));
+	await db('verification_tokens').where('expires', '<', now).delete();
+	await db('sessions').where('expires', '<', now).delete();
 }
