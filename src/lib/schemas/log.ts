@@ -5,6 +5,7 @@
  * gaffer on a dark set can act on.
  */
 import { z } from 'zod';
+import { SUPPLY_PRESETS } from '../settools/power';
 
 export const SETUP_STATUSES = ['planning', 'lit', 'shot'] as const;
 export type SetupStatus = (typeof SETUP_STATUSES)[number];
@@ -341,3 +342,79 @@ function patchOf<T extends z.ZodObject>(inner: T) {
 		return out as Partial<z.infer<T>>;
 	});
 }
+
+// ——— JSON API queries ———
+
+const queryId = z.coerce.number().int().positive();
+const limit = z.coerce.number().int().min(1).max(500).default(100);
+const offset = z.coerce.number().int().min(0).default(0);
+
+export const listDaysQuerySchema = z.object({
+	q: z.string().trim().max(200).optional(),
+	sort: z.enum(['date', 'label', 'location', 'setups']).default('date'),
+	order: z.enum(['asc', 'desc']).default('asc'),
+	limit,
+	offset
+});
+export const listSetupsQuerySchema = z.object({ day: queryId.optional() });
+export const listLightsQuerySchema = z.object({ setup: queryId.optional(), kind: z.enum(LIGHT_KIND_IDS as [LightKind, ...LightKind[]]).optional() });
+export const listCommentsQuerySchema = z
+	.object({ subject_type: z.enum(COMMENT_SUBJECTS).optional(), subject_id: queryId.optional(), limit, offset })
+	.refine((q) => (q.subject_id === undefined) || q.subject_type !== undefined, { message: 'Give subject_type with subject_id.', path: ['subject_type'] });
+
+export const lockBodySchema = z.object({ locked: z.boolean({ error: 'Send "locked": true or false.' }), version: versionField }).strict();
+export const targetBodySchema = z.object({ target: storedTargetSchema.nullable(), tolerance: toleranceField, version: versionField }).strict();
+
+export const fixBodySchema = z
+	.object({
+		kind: z.enum(['gel', 'led'], { error: 'A fix is a gel fix or an LED fix.' }),
+		fix: z.record(z.string(), z.unknown()),
+		predicted: z.record(z.string(), z.unknown()).nullish(),
+		note: z.string().trim().max(2000).nullish()
+	})
+	.strict();
+
+/** The circuit form: a preset fills whatever was left blank (volts, amps, continuous share). */
+export const circuitFormSchema = z.preprocess((raw) => {
+	if (!raw || typeof raw !== 'object') return raw;
+	const f = { ...(raw as Record<string, unknown>) };
+	const preset = SUPPLY_PRESETS.find((p) => p.id === f.preset);
+	const empty = (v: unknown) => v === undefined || v === null || (typeof v === 'string' && v.trim() === '');
+	if (preset) {
+		if (empty(f.volts)) f.volts = preset.volts;
+		if (empty(f.amps)) f.amps = preset.breakerAmps;
+		if (empty(f.derating)) f.derating = preset.continuousFraction;
+	}
+	if (empty(f.preset)) f.preset = null;
+	return f;
+}, circuitSchema);
+
+// ——— Page queries (bad values fall back to defaults: a list never fails on its URL) ———
+
+export const daysPageQuerySchema = z.object({
+	q: z.string().trim().max(200).catch('').default(''),
+	sort: z.enum(['date', 'label', 'location', 'setups']).catch('date').default('date'),
+	...pageQuery
+});
+export const setupPageQuerySchema = z.object({
+	sort: z.enum(['position', 'label', 'role', 'kind', 'power', 'distance', 'cct']).catch('position').default('position'),
+	order: z.enum(['asc', 'desc']).catch('asc').default('asc'),
+	kind: z.string().max(40).catch('').default(''),
+	role: z.string().max(40).catch('').default('')
+});
+export const reviewQuerySchema = z.object({
+	day: z.coerce.number().int().positive().optional().catch(undefined),
+	setup: z.coerce.number().int().positive().optional().catch(undefined),
+	kind: z.string().max(40).catch('').default(''),
+	page: pageQuery.page
+});
+export const activityQuerySchema = z.object({
+	type: z.enum(['project', 'shoot_day', 'setup', 'light', 'circuit', 'reading', 'comment', 'fix']).optional().catch(undefined),
+	user: z.coerce.number().int().positive().optional().catch(undefined),
+	q: z.string().trim().max(200).catch('').default(''),
+	order: z.enum(['asc', 'desc']).catch('desc').default('desc'),
+	page: pageQuery.page
+});
+
+export const idFormSchema = (key: string) => z.object({ [key]: id(key.replace(/Id$/, '')) });
+export const versionFormSchema = z.object({ version: versionField });

@@ -10,6 +10,8 @@
  * `attempt`.
  */
 import { fail, type ActionFailure } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { displaySwatch } from '$lib/colour';
 import { distance, resolveTargetWhite, type TargetSpec, type TargetWhite } from '$lib/matching/target';
 import { gelDefinition } from '$lib/matching/gels/definitions';
 import { POWER_CAUTIONS, loadMessage, powerBudget, type PowerPlan } from '$lib/settools/power';
@@ -37,6 +39,7 @@ import type { Setup, SetupFields } from '$lib/server/db/setups';
 import type { ShootDay, ShootDayFields } from '$lib/server/db/shoot-days';
 import type { Permission, ProjectAccess } from '$lib/server/authz';
 import { createReading, UnusableInputError } from '$lib/server/services/readings';
+import { formValues, parseForm } from '$lib/server/auth/form';
 import { sendMail } from '$lib/server/mail/transport';
 import { escapeHtml } from '$lib/server/mail/templates';
 import {
@@ -81,6 +84,24 @@ export interface ConflictDetails {
 	current: Record<string, unknown>;
 }
 
+/** What a page's form action answers (success or failure), so every form reads the same fields. */
+export interface FormResult {
+	action: string;
+	ok?: boolean;
+	/** A sentence for the person (refusals, or a success note). */
+	message?: string;
+	code?: LogErrorCode;
+	conflict?: ConflictDetails;
+	issues?: Record<string, string[]>;
+	values?: Record<string, string>;
+	subjectType?: string;
+	subjectId?: number;
+	lightId?: number;
+	circuitId?: number;
+	commentId?: number;
+	mentioned?: { userId: number; name: string }[];
+}
+
 /**
  * For form actions: runs a service call and turns a `LogError` into `fail(status, …)` with the
  * message, the conflict (if any) and the submitted values for the form to refill.
@@ -89,12 +110,13 @@ export async function attempt<T>(
 	action: string,
 	values: Record<string, string>,
 	fn: () => Promise<T>,
-	extra: Record<string, unknown> = {}
-): Promise<{ ok: true; value: T } | { ok: false; failure: ActionFailure<ActionFailureData> }> {
+	extra: Partial<FormResult> = {}
+): Promise<{ ok: true; value: T } | { ok: false; failure: ActionFailure<FormResult> }> {
 	try {
 		return { ok: true, value: await fn() };
 	} catch (e) {
 		if (e instanceof LogError) {
+			const issues = e.logCode === 'invalid' && Array.isArray(e.details) ? issuesFromDetails(e.details as { path: string; message: string }[]) : undefined;
 			return {
 				ok: false,
 				failure: fail(e.status, {
@@ -103,6 +125,7 @@ export async function attempt<T>(
 					message: e.message,
 					code: e.logCode,
 					conflict: e.logCode === 'conflict' ? (e.details as ConflictDetails) : undefined,
+					issues,
 					values
 				})
 			};
@@ -111,13 +134,36 @@ export async function attempt<T>(
 	}
 }
 
-export interface ActionFailureData {
-	action: string;
-	message: string;
-	code: LogErrorCode;
-	conflict?: ConflictDetails;
-	values: Record<string, string>;
-	[key: string]: unknown;
+function issuesFromDetails(details: { path: string; message: string }[]): Record<string, string[]> {
+	const out: Record<string, string[]> = {};
+	for (const d of details) (out[d.path] ??= []).push(d.message);
+	return out;
+}
+
+/**
+ * A whole form action after the permission check: parse the form with `schema` (400 with field
+ * issues and the values to refill), run the service call (refusals become `fail`), and answer
+ * `{ action, ok: true, … }`. `extra` picks ids from the form that the page needs to place the answer.
+ */
+export async function formAction<S extends z.ZodType>(
+	request: Request,
+	action: string,
+	schema: S,
+	run: (data: z.infer<S>, form: FormData) => Promise<Partial<FormResult> | void>,
+	extra: (form: FormData) => Partial<FormResult> = () => ({})
+): Promise<FormResult | ActionFailure<FormResult>> {
+	const form = await request.formData();
+	const more = extra(form);
+	const parsed = parseForm(schema, form);
+	if (!parsed.ok) return fail(400, { action, ...more, issues: parsed.issues, values: parsed.values });
+	const r = await attempt(action, formValues(form), () => run(parsed.data, form), more);
+	if (!r.ok) return r.failure;
+	return { action, ...more, ok: true, ...(r.value ?? {}) };
+}
+
+/** An id field of a submitted form (0 when absent or malformed). */
+export function formId(form: FormData, key: string): number {
+	return parseId(String(form.get(key) ?? '')) ?? 0;
 }
 
 function need(access: ProjectAccess, permission: Permission): void {
@@ -433,6 +479,17 @@ export interface TargetView {
 	mired: number | null;
 	tolerance: number;
 	warnings: string[];
+	/** sRGB hex of the tint, for a swatch. */
+	swatch: string | null;
+}
+
+/** sRGB swatch of a chromaticity (null when it cannot be shown). */
+export function swatchOf(x: number, y: number): string | null {
+	try {
+		return displaySwatch({ x, y }).hex;
+	} catch {
+		return null;
+	}
 }
 
 /** The stored target resolved to a chromaticity (null when its reading is gone or it cannot be computed). */
@@ -461,7 +518,7 @@ export async function resolveTarget(projectId: number, stored: StoredTarget, tol
 	} catch {
 		return null;
 	}
-	return { stored, label: t.label, x: t.x, y: t.y, u_prime: t.u_prime, v_prime: t.v_prime, CCT: t.CCT, Duv: t.Duv, mired: t.mired, tolerance: t.tolerance, warnings: t.warnings };
+	return { stored, label: t.label, x: t.x, y: t.y, u_prime: t.u_prime, v_prime: t.v_prime, CCT: t.CCT, Duv: t.Duv, mired: t.mired, tolerance: t.tolerance, warnings: t.warnings, swatch: swatchOf(t.x, t.y) };
 }
 
 export interface DistanceView {
@@ -494,7 +551,26 @@ export function listLights(access: ProjectAccess, o: lights.ListOptions = {}): P
 	return lights.list(access.project.id, o);
 }
 
-export async function createLight(access: ProjectAccess, setupId: number, input: Omit<LightFields, 'position'>): Promise<Light> {
+/** A light as the forms and the API give it: optional fields may be missing or null. */
+export type LightInput = { label: string } & { [K in Exclude<keyof LightFields, 'label' | 'position'>]?: LightFields[K] | null | undefined };
+
+function lightFields(i: LightInput): Omit<LightFields, 'position'> {
+	return {
+		label: i.label,
+		role: i.role ?? 'key',
+		kind: i.kind ?? 'other',
+		fixtureProfile: i.fixtureProfile ?? null,
+		gelStack: i.gelStack ?? [],
+		ledSettings: i.ledSettings ?? null,
+		dimmerPercent: i.dimmerPercent ?? null,
+		powerW: i.powerW ?? null,
+		circuitId: i.circuitId ?? null,
+		notes: i.notes ?? ''
+	};
+}
+
+export async function createLight(access: ProjectAccess, setupId: number, given: LightInput): Promise<Light> {
+	const input = lightFields(given);
 	need(access, 'light.edit');
 	const s = await setups.read(access.project.id, setupId);
 	if (!s) throw new LogError('invalid', 'That setup is not in this project.', [{ path: 'setupId', message: 'No such setup in this project.' }]);
@@ -600,7 +676,8 @@ export async function acceptFix(access: ProjectAccess, lightId: number, input: F
 
 // ——— Circuits (power plan) ———
 
-export async function createCircuit(access: ProjectAccess, setupId: number, input: CircuitFields): Promise<Circuit> {
+export async function createCircuit(access: ProjectAccess, setupId: number, given: Omit<CircuitFields, 'preset'> & { preset?: string | null }): Promise<Circuit> {
+	const input: CircuitFields = { ...given, preset: given.preset ?? null };
 	need(access, 'power.edit');
 	const s = await setups.read(access.project.id, setupId);
 	if (!s) throw new LogError('not_found', 'There is no such setup in this project.');
@@ -611,7 +688,8 @@ export async function createCircuit(access: ProjectAccess, setupId: number, inpu
 	});
 }
 
-export async function updateCircuit(access: ProjectAccess, id: number, patch: Partial<CircuitFields>, version: number): Promise<Circuit> {
+export async function updateCircuit(access: ProjectAccess, id: number, given: Partial<Omit<CircuitFields, 'preset'>> & { preset?: string | null }, version: number): Promise<Circuit> {
+	const patch: Partial<CircuitFields> = { ...given, ...(given.preset !== undefined ? { preset: given.preset ?? null } : {}) };
 	need(access, 'power.edit');
 	const before = await circuits.read(access.project.id, id);
 	if (!before) throw new LogError('not_found', 'There is no such circuit in this project.');
@@ -926,6 +1004,7 @@ export interface ReadingView {
 	lux: number | null;
 	warnings: string[];
 	distance: DistanceView | null;
+	swatch: string | null;
 }
 
 export function readingView(r: Reading, target: TargetView | null): ReadingView {
@@ -946,7 +1025,8 @@ export function readingView(r: Reading, target: TargetView | null): ReadingView 
 		ssi: r.computed.ssi,
 		lux: r.computed.lux,
 		warnings: r.computed.warnings ?? [],
-		distance: readingDistance(r, target)
+		distance: readingDistance(r, target),
+		swatch: swatchOf(r.computed.x, r.computed.y)
 	};
 }
 
