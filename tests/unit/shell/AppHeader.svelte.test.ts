@@ -32,3 +32,15 @@ describe('AppHeader', () => {
 		expect(button).toHaveAttribute('aria-pressed', 'true');
 	});
 });
+
+describe('AppHeader account area', () => {
+	it('offers sign-in to a visitor and sign-out to a signed-in person', () => {
+		const { unmount } = render(AppHeader, { items: NAV_ITEMS });
+		expect(screen.getByTestId('header-sign-in')).toHaveAttribute('href', '/sign-in');
+		unmount();
+		render(AppHeader, { items: NAV_ITEMS, user: { name: 'Demo Gaffer', email: 'demo.gaffer@example.test' } });
+		expect(screen.queryByTestId('header-sign-in')).toBeNull();
+		expect(screen.getByRole('button', { name: 'Sign out' })).toBeInTheDocument();
+		expect(screen.getByTestId('header-account')).toHaveAttribute('action', '/sign-out');
+	});
+});
