@@ -236,8 +236,13 @@ export const lightFormSchema = z
 		const hasLed = f.ledCct != null || f.ledGm != null || f.ledIntensity != null || Object.keys(channels).length > 0;
 		const { ledCct, ledGm, ledIntensity, ledChannels: _c, ...rest } = f;
 		void _c;
+		// A blank field on the form clears the stored value (null), it does not leave it as it was.
 		return {
 			...rest,
+			fixtureProfile: rest.fixtureProfile ?? null,
+			dimmerPercent: rest.dimmerPercent ?? null,
+			powerW: rest.powerW ?? null,
+			circuitId: rest.circuitId ?? null,
 			ledSettings: hasLed ? { cct_k: ledCct ?? null, gm: ledGm ?? null, intensity: ledIntensity ?? null, channels: Object.keys(channels).length ? channels : null } : null
 		};
 	});
