@@ -343,6 +343,9 @@ export interface ArrowShape {
 	y2: number;
 	/** Closed triangle whose tip is the arrow's end. */
 	head: string;
+	/** A place for the arrow's label: `head` × 4 back from the tip (or half-way), beside the shaft. */
+	lx: number;
+	ly: number;
 }
 
 /** An arrow in viewBox units from `from` to `to` with a head `head` units long; null if shorter than 0.5. */
@@ -358,7 +361,17 @@ export function arrowShape(from: Point, to: Point, head = 8): ArrowShape | null 
 	const by = to.y - uy * h;
 	const w = h * 0.45;
 	const head_ = `M${round(to.x)},${round(to.y)}L${round(bx - uy * w)},${round(by + ux * w)}L${round(bx + uy * w)},${round(by - ux * w)}Z`;
-	return { x1: round(from.x), y1: round(from.y), x2: round(bx), y2: round(by), head: head_ };
+	const back = Math.min(len / 2, head * 4);
+	const side = uy > 0 ? 1 : -1;
+	return {
+		x1: round(from.x),
+		y1: round(from.y),
+		x2: round(bx),
+		y2: round(by),
+		head: head_,
+		lx: round(to.x - ux * back - side * uy * head * 0.6),
+		ly: round(to.y - uy * back + side * ux * head * 0.6)
+	};
 }
 
 export type PointShape = 'circle' | 'square' | 'triangle' | 'diamond' | 'cross' | 'star' | 'wye';

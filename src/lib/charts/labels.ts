@@ -31,11 +31,12 @@ export function overlaps(a: Box, b: Box): boolean {
 	return a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
 }
 
-/** Which labels to draw (true = keep), in input order. */
-export function declutter(labels: readonly LabelBox[], font: number, obstacles: readonly Box[] = []): boolean[] {
+/** Which labels to draw (true = keep), in input order; with `bounds`, only labels wholly inside it. */
+export function declutter(labels: readonly LabelBox[], font: number, obstacles: readonly Box[] = [], bounds?: Box): boolean[] {
 	const kept: Box[] = [];
 	return labels.map((l) => {
 		const b = labelBox(l, font);
+		if (bounds && (b.x0 < bounds.x0 || b.x1 > bounds.x1 || b.y0 < bounds.y0 || b.y1 > bounds.y1)) return false;
 		if (obstacles.some((o) => overlaps(b, o)) || kept.some((k) => overlaps(b, k))) return false;
 		kept.push(b);
 		return true;

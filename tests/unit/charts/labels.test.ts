@@ -19,6 +19,11 @@ describe('declutter', () => {
 		expect(keep).toEqual([false]);
 	});
 
+	it('drops a label that would be cut off at the edge of the plot', () => {
+		const bounds = { x0: 0, y0: 0, x1: 100, y1: 100 };
+		expect(declutter([{ x: 95, y: 50, text: '590', anchor: 'start' }, { x: 50, y: 50, text: '590', anchor: 'start' }], 10, [], bounds)).toEqual([false, true]);
+	});
+
 	it('places boxes by text anchor', () => {
 		const s = labelBox({ x: 50, y: 20, text: 'abcd', anchor: 'start' }, 10, 0);
 		const e = labelBox({ x: 50, y: 20, text: 'abcd', anchor: 'end' }, 10, 0);

@@ -55,7 +55,7 @@ export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] 
 		const g = document.createElementNS(SVG_NS, 'g');
 		const clip = layer.getAttribute('clip-path');
 		if (clip) g.setAttribute('clip-path', clip);
-		const stroke = resolveVars('var(--cs-surface)', root);
+		const stroke = resolveVars('var(--cs-ink-muted)', root);
 		for (const m of marks) {
 			const p = document.createElementNS(SVG_NS, 'path');
 			p.setAttribute('d', shapePath(m.shape, m.area));

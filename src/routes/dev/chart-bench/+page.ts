@@ -3,7 +3,6 @@ import { error } from '@sveltejs/kit';
 import type { PageLoad } from './$types';
 
 // A measuring page for scripts/bench/chart.ts: exists only under `vite dev`, a 404 in any build.
-export const ssr = false;
 
 export const load: PageLoad = ({ url }) => {
 	if (!dev) error(404, 'Not found');
