@@ -5,7 +5,7 @@ import { startPolling } from '../../../src/lib/components/bench/poll';
 function fakeDoc(state: 'visible' | 'hidden' = 'visible') {
 	const listeners = new Set<() => void>();
 	return {
-		visibilityState: state as DocumentVisibilityState,
+		visibilityState: state as string,
 		addEventListener: (_: string, f: () => void) => void listeners.add(f),
 		removeEventListener: (_: string, f: () => void) => void listeners.delete(f),
 		set(s: 'visible' | 'hidden') {

@@ -3,6 +3,13 @@
  * when it is hidden (and fetch at once on coming back), hand over a snapshot only when its version
  * changed. The document and timers are passed in so this runs the same in tests.
  */
+/** The part of `document` the poller uses. */
+export interface VisibilitySource {
+	readonly visibilityState: string;
+	addEventListener(type: 'visibilitychange', listener: () => void): void;
+	removeEventListener(type: 'visibilitychange', listener: () => void): void;
+}
+
 export interface PollOptions<T extends { version: string }> {
 	url: string;
 	intervalMs?: number;
@@ -11,7 +18,7 @@ export interface PollOptions<T extends { version: string }> {
 	onchecked?: (at: number) => void;
 	onerror?: (message: string) => void;
 	fetch?: typeof fetch;
-	doc?: Pick<Document, 'visibilityState' | 'addEventListener' | 'removeEventListener'>;
+	doc?: VisibilitySource;
 }
 
 export function startPolling<T extends { version: string }>(o: PollOptions<T>): () => void {
