@@ -11,10 +11,12 @@ import { closeDb } from '../src/lib/server/db';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedAccounts } from './seed/accounts';
 import type { SeedContext } from './seed/context';
 import { seedDemoProject } from './seed/project';
+import { seedLightingLog } from './seed/log';
 
 const STEPS: ReadonlyArray<readonly [string, (ctx: SeedContext) => Promise<void>]> = [
 	['demo accounts', seedAccounts],
-	['demo project', seedDemoProject]
+	['demo project', seedDemoProject],
+	['demo lighting log', seedLightingLog]
 ];
 
 function signInLines(): string[] {
