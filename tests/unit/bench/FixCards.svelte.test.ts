@@ -50,7 +50,7 @@ describe('LedFixCard', () => {
 		expect(within(rows[3]).getAllByRole('cell').map((c) => c.textContent?.replace(/\u00a0/g, ' '))).toEqual(['100.0 %', '255', '255 / 255']);
 		expect(screen.getByTestId('led-cct')).toHaveTextContent('5,500 K');
 		expect(screen.getByTestId('led-output')).toHaveTextContent('62 %');
-		expect(screen.getByTestId('led-gamut')).toHaveTextContent('Inside this fixture’s gamut');
+		expect(screen.getByTestId('led-gamut')).toHaveTextContent('In gamut. Met exactly');
 		expect(screen.getByRole('button', { name: 'Accept this LED fix' })).toBeInTheDocument();
 	});
 	it('out of gamut, and a bi-colour CCT with green/magenta', () => {
@@ -59,7 +59,7 @@ describe('LedFixCard', () => {
 			tolerance: 0.002,
 			canAccept: false
 		});
-		expect(screen.getByTestId('led-gamut')).toHaveTextContent('Outside this fixture’s gamut');
+		expect(screen.getByTestId('led-gamut')).toHaveTextContent('Outside the gamut. Aimed at the nearest reachable white.');
 		expect(screen.getByTestId('led-bicolour')).toHaveTextContent('Bi-colour: set 4,300 K, green/magenta −0.0021 Duv');
 		expect(screen.queryByRole('button', { name: /accept/i })).toBeNull();
 	});
