@@ -182,7 +182,7 @@ export const PLANCK_MAX_K = 25000;
 export function planckianLocus(
 	minK = PLANCK_MIN_K,
 	maxK = PLANCK_MAX_K,
-	stepMired = 10,
+	stepMired = 20,
 	Duv = 0,
 	alsoK: readonly number[] = REFERENCE_KELVIN
 ): Array<Point & { K: number }> {
@@ -200,8 +200,24 @@ export function planckianLocus(
 	});
 }
 
-export function planckianLocusPath(s: PlaneScales): string {
-	return planePath(planckianLocus(), s);
+/**
+ * The Planckian locus as a path: every 20 mired over the whole locus, and finer (20 / zoom mired, at
+ * least 0.5) across the part in `domain` when zoomed in, so the curve stays smooth at any zoom
+ * without computing the whole locus finely.
+ */
+export function planckianLocusPath(s: PlaneScales, domain: Domain = XY_FULL_DOMAIN): string {
+	const base = planckianLocus();
+	const zoom = (XY_FULL_DOMAIN.x1 - XY_FULL_DOMAIN.x0) / (domain.x1 - domain.x0);
+	if (zoom < 3) return planePath(base, s);
+	const inView = base.filter((p) => contains(domain, p, (domain.x1 - domain.x0) * 0.5));
+	if (inView.length === 0) return planePath(base, s);
+	const mHi = Math.min(1e6 / PLANCK_MIN_K, 1e6 / inView[0].K + 20);
+	const mLo = Math.max(1e6 / PLANCK_MAX_K, 1e6 / inView[inView.length - 1].K - 20);
+	const step = Math.max(0.5, 20 / zoom);
+	const fine: Array<Point & { K: number }> = [];
+	for (let m = mHi; m >= mLo; m -= step) fine.push({ K: 1e6 / m, ...CCTDuvToXy(1e6 / m, 0) });
+	const pts = [...base.filter((p) => 1e6 / p.K > mHi), ...fine, ...base.filter((p) => 1e6 / p.K < mLo)];
+	return planePath(pts, s);
 }
 
 /**
@@ -209,8 +225,8 @@ export function planckianLocusPath(s: PlaneScales): string {
  * Duv > 0 lies above the locus (greenish), < 0 below (magenta).
  */
 export function duvBandPath(s: PlaneScales, duv = 0.006, minK = 1500, maxK = 20000): string {
-	const upper = planckianLocus(minK, maxK, 10, duv);
-	const lower = planckianLocus(minK, maxK, 10, -duv).reverse();
+	const upper = planckianLocus(minK, maxK, 20, duv);
+	const lower = planckianLocus(minK, maxK, 20, -duv).reverse();
 	return planePath([...upper, ...lower], s, true);
 }
 

@@ -83,7 +83,7 @@ export function duvLabel(Duv: number): string {
  * Lines of constant Duv near `CCT` (kelvin): for each Duv, CCTDuvToXy(T, Duv) → u′v′ for T from
  * `halfRangeMired` mired warmer to as many cooler, every `stepMired` mired.
  */
-export function duvGridLines(CCT: number, duvs: readonly number[] = DUV_GRID, halfRangeMired = 120, stepMired = 2): DuvLine[] {
+export function duvGridLines(CCT: number, duvs: readonly number[] = DUV_GRID, halfRangeMired = 120, stepMired = 4): DuvLine[] {
 	if (!(CCT > 0) || !Number.isFinite(CCT)) throw new RangeError(`CCT must be a temperature in kelvin above 0, got ${CCT}`);
 	const m0 = 1e6 / CCT;
 	const hi = Math.min(1000, m0 + halfRangeMired);

@@ -125,6 +125,18 @@ describe('Planckian locus', () => {
 		expect(distanceToPolyline(onScreen, [{ x: tick.x1, y: tick.y1 }, { x: tick.x2, y: tick.y2 }])).toBeLessThan(0.02);
 	});
 
+	it('stays smooth when zoomed in: finer vertices in view, every temperature within 0.05 units of the path', () => {
+		const c = CCTToXy(3200, 0);
+		const domain = { x0: c.x - 0.01, x1: c.x + 0.01, y0: c.y - 0.01125, y1: c.y + 0.01125 };
+		const s = xyScales(domain);
+		const pts = vertices(planckianLocusPath(s, domain));
+		const inView = pts.filter((p) => p.x >= 48 && p.x <= 528 && p.y >= 12 && p.y <= 552);
+		expect(inView.length).toBeGreaterThan(20);
+		for (const K of [3000, 3100, 3150, 3250, 3333, 3400]) {
+			expect(distanceToPolyline(project(s, CCTToXy(K, 0)), pts)).toBeLessThan(0.05);
+		}
+	});
+
 	it('labels even mired steps with the rounded kelvin (common practice: equal mired steps)', () => {
 		const ticks = isotemperatureTicks(xyScales(), XY_FULL_DOMAIN, 100, []);
 		expect(ticks.map((t) => t.label)).toEqual(['10000 K', '5000 K', '3333 K', '2500 K', '2000 K', '1667 K', '1429 K', '1250 K', '1111 K', '1000 K']);

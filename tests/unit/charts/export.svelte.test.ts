@@ -29,6 +29,8 @@ describe('saving a chart', () => {
 		expect(out).not.toContain('var(');
 		expect(out).not.toContain('tabindex');
 		expect(out).toContain('#121214');
+		// Marks are sized by a class rule on screen; the file carries their scale itself.
+		expect(out).toMatch(/class="mark[^"]*"[^>]*transform="scale\(1\)"|transform="scale\(1\)"[^>]*class="mark/);
 		const doc = new DOMParser().parseFromString(out, 'image/svg+xml');
 		expect(doc.querySelector('parsererror')).toBeNull();
 	});

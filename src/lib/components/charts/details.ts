@@ -29,6 +29,11 @@ export function swatchFill(xy: { x: number; y: number }, quantum = 0.001): strin
 	return css;
 }
 
+/** Swatch grid for a set of `n` marks: exact-looking for a few, coarser as marks get many and small. */
+export function swatchQuantum(n: number): number {
+	return n <= 24 ? 0.001 : n <= 500 ? 0.004 : 0.01;
+}
+
 export function fmt(v: number, digits: number): string {
 	return Number.isFinite(v) ? v.toFixed(digits).replace('-', '−') : '—';
 }

@@ -35,7 +35,6 @@ export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] 
 	const root = document.documentElement;
 	clone.removeAttribute('class');
 	clone.removeAttribute('style');
-	clone.setAttribute('style', `--u: ${getComputedStyle(svg).getPropertyValue('--u').trim() || '1'}`);
 	const vb = svg.viewBox.baseVal;
 	if (vb && vb.width) {
 		clone.setAttribute('width', String(vb.width));
@@ -49,6 +48,13 @@ export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] 
 			}
 			if (attr.value.includes('var(')) el.setAttribute(attr.name, resolveVars(attr.value, svg));
 		}
+	}
+	// Marks and labels are sized by a class rule on screen; a saved file carries the sizes itself.
+	const u = Number(getComputedStyle(svg).getPropertyValue('--u')) || 1;
+	for (const el of clone.querySelectorAll('.mark')) el.setAttribute('transform', `scale(${u})`);
+	for (const el of clone.querySelectorAll('.mark-label')) {
+		el.setAttribute('font-size', String(11 * u));
+		el.setAttribute('stroke-width', String(3 * u));
 	}
 	const layer = clone.querySelector('[data-canvas-layer]');
 	if (layer) {
