@@ -70,6 +70,7 @@ test.describe('signed in as the DP', () => {
 
 	test('axe: setup bench, with a light selected', async ({ page }) => {
 		await page.goto(`${base}/setups/${setupId}/bench`);
+		await expect(page.getByTestId('bench')).toHaveAttribute('data-hydrated', 'true');
 		await audit(page, 'setup bench');
 		const first = page.getByTestId('bench-light').first();
 		if (await first.count()) {

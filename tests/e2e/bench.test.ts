@@ -61,6 +61,7 @@ test('the gaffer reads the bench, gets gel and LED fixes, accepts one and sees i
 	await page.goto(`${base}/setups/${setupId}`);
 	await page.getByTestId('open-bench').click();
 	await expect(page).toHaveURL(new RegExp(`/setups/${setupId}/bench$`));
+	await expect(page.getByTestId('bench')).toHaveAttribute('data-hydrated', 'true');
 
 	// Every light with a reading is on the chart, against the target and its tolerance.
 	const snap = await ok<{ lights: { id: number; label: string; lastReading: unknown; led: boolean }[]; target: { CCT: number } }>(await page.request.get(`/api/v1/projects/${projectId}/setups/${setupId}/bench`));
@@ -137,7 +138,7 @@ test('a viewer sees the bench but no Accept and no fix requests', async ({ page 
 	const { items } = await ok<{ items: SetupRow[] }>(await page.request.get(`/api/v1/projects/${projectId}/setups`));
 	test.skip(items.length === 0, 'the demo has no setup yet');
 	await page.goto(`${base}/setups/${items[0].id}/bench`);
-	await expect(page.getByTestId('bench-setup-name')).toBeVisible();
+	await expect(page.getByTestId('bench')).toHaveAttribute('data-hydrated', 'true');
 	const first = page.getByTestId('bench-light').first();
 	if (await first.count()) {
 		await first.click();
