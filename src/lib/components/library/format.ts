@@ -19,21 +19,27 @@ export function fmtMired(n: number): string {
 	return signed(n, Math.abs(n) < 10 ? 1 : 0);
 }
 
-/** A figure as given (e.g. −65.5, +159), without trailing zeros. */
+/** A figure as the model uses it (e.g. −65.5, +159), to at most one decimal, without trailing zeros. */
 export function fmtExact(n: number): string {
 	if (!Number.isFinite(n)) return '–';
-	const s = String(Number(n.toFixed(3)));
+	const s = String(Number(n.toFixed(1)));
 	return n > 0 ? `+${s}` : minus(s);
+}
+
+/** A quoted range's end: whole mired (one decimal below 10), since quoted figures differ by several mired. */
+export function fmtRangeEnd(n: number): string {
+	return fmtMired(n);
 }
 
 export function fmtDuv(n: number): string {
 	return signed(n, 4);
 }
 
+/** Stops to 0.1: light loss figures are rules of thumb, and a tenth of a stop is below what a meter reading on set settles. */
 export function fmtStops(n: number): string {
 	if (!Number.isFinite(n)) return '–';
-	const s = n.toFixed(n < 0.95 ? 2 : 1);
-	return `${s} ${Math.abs(Number(s) - 1) < 1e-9 ? 'stop' : 'stops'}`;
+	const s = n.toFixed(1);
+	return `${s} ${Number(s) === 1 ? 'stop' : 'stops'}`;
 }
 
 export function fmtRange(r: ValueRange, f: (n: number) => string): string {
