@@ -44,7 +44,7 @@ export interface BenchLight {
 	heatCaution: string | null;
 	/** Hot units (tungsten, HMI, practicals): gels on them need care. */
 	hot: boolean;
-	/** LED kinds: an LED fix applies. */
+	/** LED kinds with settable colour (not fixed white): an LED fix applies. */
 	led: boolean;
 	lastReading: BenchReading | null;
 	latestFix: { kind: 'gel' | 'led'; setting: string; acceptedBy: string | null; acceptedAt: string } | null;

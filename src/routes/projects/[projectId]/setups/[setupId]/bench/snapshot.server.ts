@@ -46,7 +46,8 @@ export function snapshotOf(view: SetupView): BenchSnapshot {
 			ledText: l.ledText,
 			heatCaution: l.heatCaution,
 			hot: HOT.has(l.kind),
-			led: l.kind.startsWith('led'),
+			// A fixed-white LED has no colour to set: gels are its fixes.
+			led: l.kind.startsWith('led') && l.kind !== 'led-white',
 			lastReading: r
 				? { id: r.id, label: r.label, x: r.x, y: r.y, u_prime: r.u_prime, v_prime: r.v_prime, cct_k: r.cct_k, duv: r.duv, ra: r.ra, takenAt: iso(r.takenAt), createdAt: iso(r.createdAt) ?? '', swatch: r.swatch, distance: r.distance }
 				: null,
