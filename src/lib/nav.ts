@@ -6,8 +6,7 @@ export interface NavItem {
 }
 
 export const NAV_ITEMS: readonly NavItem[] = [
-	{ label: 'Projects', href: '/projects', description: 'Lighting logs, shoot days and setups' },
-	{ label: 'Readings', href: null, description: 'Upload or type meter readings' },
+	{ label: 'Projects', href: '/projects', description: 'Lighting logs: shoot days, setups, lights and readings' },
 	{ label: 'Mired lab', href: '/lab', description: 'Kelvin and mired arithmetic for teaching' },
 	{ label: 'Set tools', href: '/tools', description: 'Flicker-safe shutter and power plan' },
 	{ label: 'Library', href: '/library', description: 'Fixture profiles and filters' }
