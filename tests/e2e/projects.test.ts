@@ -65,7 +65,7 @@ test('the projects list shows only your projects, and a project you are not on d
 	const url = page.url();
 
 	await page.goto('/sign-out');
-	await page.getByRole('button', { name: 'Sign out' }).click();
+	await page.locator('#main').getByRole('button', { name: 'Sign out' }).click();
 	await signIn(page, demo('gaffer').email);
 	await expect(page.getByTestId('project-list')).toContainText(DEMO_PROJECT_NAME);
 	await expect(page.getByTestId('project-list')).not.toContainText(name);
