@@ -3,6 +3,7 @@
  * read (`raw`), next to the values computed from it and the computation version that made them.
  */
 import type { Knex } from 'knex';
+import type { ReadingAnalysis } from '../../colour';
 import { db } from './index';
 import { parseJson, toDateTime, toJson } from './json';
 
@@ -23,19 +24,8 @@ export type RawReading =
 	| { kind: 'cct_duv'; cct_k: number; duv: number; lux?: number | null }
 	| { kind: 'tristimulus'; X: number; Y: number; Z: number; lux?: number | null };
 
-export interface Computed {
-	x: number;
-	y: number;
-	u_prime: number;
-	v_prime: number;
-	cct_k: number | null;
-	duv: number | null;
-	mired: number | null;
-	lux: number | null;
-	cri: { ra: number; r: number[] } | null;
-	ssi: number | null;
-	warnings: string[];
-}
+/** The values computed from `raw`: exactly the colour core's analysis of it. */
+export type Computed = ReadingAnalysis;
 
 export interface Reading {
 	id: number;
