@@ -79,3 +79,47 @@ test('the demo owner sets ½ CTB to −68 mired on the project library page, see
 	await expect(page.locator('[data-testid="override-row"][data-filter="ctb-half"]')).toHaveCount(0);
 	await expect(card.getByTestId('filter-mired')).toContainText('−80 to −58 mired');
 });
+
+test('the demo gaffer adds a measured filter and a fixture profile from CSV files, sees them characterised, and removes them', async ({ page }) => {
+	await page.setViewportSize({ width: 1440, height: 900 });
+	await signIn(page, 'gaffer');
+	const project = await openDemoProject(page);
+	await page.goto(`${project}/library`);
+	page.on('dialog', (d) => void d.accept());
+	const stamp = Date.now().toString(36);
+
+	// A flat 50 % sheet: one stop (a factor of two) and no colour shift.
+	let csv = 'wavelength_nm,Grey sample\n';
+	for (let nm = 380; nm <= 780; nm += 5) csv += `${nm},50\n`;
+	const gelForm = page.getByTestId('gel-upload-form');
+	await gelForm.getByLabel('Name').fill(`Test grey ${stamp}`);
+	await page.getByTestId('gel-file').setInputFiles({ name: 'grey.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+	await page.getByTestId('gel-submit').click();
+	await expect(gelForm.getByTestId('form-alert')).toContainText(`Added “Test grey ${stamp}”`);
+	await expect(gelForm.getByTestId('form-alert')).toContainText('Read as percent');
+	const card = page.getByTestId('custom-gel-card').filter({ hasText: `Test grey ${stamp}` });
+	await expect(card).toContainText('1.0 stop');
+	await expect(card).toContainText('in %');
+
+	// Channel spectra: the browser lists the channels and asks for each one's maximum output.
+	let channels = 'wavelength_nm,Warm,Cool\n';
+	for (let nm = 380; nm <= 780; nm += 5) channels += `${nm},${(Math.exp(-(((nm - 610) / 60) ** 2)) + 0.01).toFixed(5)},${(Math.exp(-(((nm - 460) / 25) ** 2)) + 0.5 * Math.exp(-(((nm - 560) / 70) ** 2))).toFixed(5)}\n`;
+	const fixtureForm = page.getByTestId('fixture-upload-form');
+	await fixtureForm.getByLabel('Name').fill(`Test panel ${stamp}`);
+	await page.getByTestId('fixture-file').setInputFiles({ name: 'panel.csv', mimeType: 'text/csv', buffer: Buffer.from(channels) });
+	const outputs = page.getByTestId('channel-outputs');
+	await expect(outputs).toContainText('Warm');
+	await outputs.getByLabel('Warm').fill('1');
+	await outputs.getByLabel('Cool').fill('1,2');
+	await page.getByTestId('fixture-submit').click();
+	await expect(fixtureForm.getByTestId('form-alert')).toContainText(`Added “Test panel ${stamp}”`);
+	const fixture = page.getByTestId('fixture-card').filter({ hasText: `Test panel ${stamp}` });
+	await expect(fixture).toContainText('Warm');
+	await expect(fixture).toContainText('45 %'); // 1 / (1 + 1.2) of the output at full
+	await screenshot(page, 'project-library-uploads', 1440);
+
+	await card.getByRole('button', { name: /Remove/ }).click();
+	await expect(page.getByTestId('custom-gel-card').filter({ hasText: `Test grey ${stamp}` })).toHaveCount(0);
+	await fixture.getByRole('button', { name: /Remove/ }).click();
+	await expect(page.getByTestId('fixture-card').filter({ hasText: `Test panel ${stamp}` })).toHaveCount(0);
+});
