@@ -107,8 +107,8 @@ export async function seedLightingLog(ctx: SeedContext): Promise<void> {
 		light: { label: 'Streetlight through the window', role: 'background', kind: 'sodium', notes: 'Low-pressure sodium outside: no gel or grade brings colours back under it. Keep it off faces.' },
 		readings: [{ label: 'Street sodium', time, spectrum: sodiumSpectrum(), lux: 12 }]
 	});
-	const sign = (time: string): LightPlan => ({
-		light: { label: 'LED sign over the counter', role: 'practical', kind: 'led-white', powerW: 45, circuit: 1, notes: 'Cool white sign, mains driven.' },
+	const sign = (time: string, circuit: number): LightPlan => ({
+		light: { label: 'LED sign over the counter', role: 'practical', kind: 'led-white', powerW: 45, circuit, notes: 'Cool white sign, mains driven.' },
 		readings: [{ label: 'Sign', time, spectrum: pcLedSpectrum(1.6, 555, 50), lux: 40 }]
 	});
 
@@ -121,7 +121,7 @@ export async function seedLightingLog(ctx: SeedContext): Promise<void> {
 		[
 			tubes('Tubes, centre of room', '20:10'),
 			sodium('20:14'),
-			sign('20:16'),
+			sign('20:16', 1),
 			{
 				light: { label: 'Key panel (RGBW)', role: 'key', kind: 'led-rgbw', fixtureProfile: 'generic-rgbw', ledSettings: { channels: { R: 35, G: 30, B: 0, W: 80 }, intensity: 70 }, dimmerPercent: null, powerW: 220, circuit: 0 },
 				readings: [
@@ -156,7 +156,7 @@ export async function seedLightingLog(ctx: SeedContext): Promise<void> {
 		[{ label: 'Counter socket', amps: 16 }],
 		[
 			tubes('Tubes over the counter', '22:05', 1.05),
-			sign('22:07'),
+			sign('22:07', 0),
 			{
 				light: { label: 'Key panel (RGBW)', role: 'key', kind: 'led-rgbw', fixtureProfile: 'generic-rgbw', ledSettings: { channels: { R: 30, G: 25, B: 0, W: 75 } }, powerW: 220, circuit: 0 },
 				readings: [{ label: 'Key on the face', time: '22:12', spectrum: rgbwSpectrum({ R: 0.3, G: 0.25, B: 0, W: 0.75 }), lux: 700 }]

@@ -734,9 +734,12 @@ export interface CircuitView {
 
 export interface PowerView {
 	circuits: CircuitView[];
+	/** Lights the crew powers that are on no circuit yet. */
 	unassigned: { id: number; label: string; powerW: number }[];
-	/** Lights with no draw given: they count as 0 W until someone fills it in. */
+	/** Lights on a circuit with no draw given: they count as 0 W until someone fills it in. */
 	noDraw: { id: number; label: string }[];
+	/** Lights with neither a circuit nor a draw: not on the crew's supply (house lights, the street). */
+	external: { id: number; label: string }[];
 	totalWatts: number;
 	assignedWatts: number;
 	unassignedWatts: number;
@@ -755,6 +758,7 @@ export function powerPlan(circuitList: readonly Circuit[], lightList: readonly L
 		lights: lightList.map((l) => ({ id: String(l.id), label: l.label, watts: l.powerW ?? 0, quantity: 1, circuitId: l.circuitId === null ? null : String(l.circuitId) }))
 	};
 	const b = powerBudget(plan);
+	const external = new Set(lightList.filter((l) => l.powerW === null && l.circuitId === null).map((l) => l.id));
 	const byId = new Map(circuitList.map((c) => [String(c.id), c]));
 	const lightOut = (id: string) => {
 		const l = lightList.find((x) => String(x.id) === id)!;
@@ -782,8 +786,9 @@ export function powerPlan(circuitList: readonly Circuit[], lightList: readonly L
 				lights: load.lights.map((l) => lightOut(l.id))
 			};
 		}),
-		unassigned: b.unassigned.map((l) => lightOut(l.id)),
-		noDraw: lightList.filter((l) => l.powerW === null).map((l) => ({ id: l.id, label: l.label })),
+		unassigned: b.unassigned.filter((l) => !external.has(Number(l.id))).map((l) => lightOut(l.id)),
+		noDraw: lightList.filter((l) => l.powerW === null && l.circuitId !== null).map((l) => ({ id: l.id, label: l.label })),
+		external: lightList.filter((l) => external.has(l.id)).map((l) => ({ id: l.id, label: l.label })),
 		totalWatts: b.totalWatts,
 		assignedWatts: b.assignedWatts,
 		unassignedWatts: b.unassignedWatts,

@@ -27,11 +27,12 @@ describe('powerPlan', () => {
 		expect(trip.worst).toBe('over-breaker');
 		expect(trip.overCount).toBe(1);
 	});
-	it('counts unassigned lights and lights with no draw given, and notes a circuit off the day’s mains', () => {
-		const p = powerPlan([circuit(1, 120, 15)], [light(1, 500, null), light(2, null, 1)], 230);
+	it('counts unassigned lights, lights on a circuit with no draw given, lights not on the crew’s supply, and notes a circuit off the day’s mains', () => {
+		const p = powerPlan([circuit(1, 120, 15)], [light(1, 500, null), light(2, null, 1), light(3, null, null)], 230);
 		expect(p.unassigned.map((l) => l.id)).toEqual([1]);
 		expect(p.unassignedWatts).toBe(500);
 		expect(p.noDraw.map((l) => l.id)).toEqual([2]);
+		expect(p.external.map((l) => l.id)).toEqual([3]);
 		expect(p.totalWatts).toBe(500);
 		expect(p.notes[0]).toMatch(/120 V .* 230 V/);
 	});
