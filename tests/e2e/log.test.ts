@@ -120,3 +120,26 @@ test('the colorist exports: CSV download with the documented header, and a repor
 	await expect(page.getByRole('button', { name: 'Print or save as PDF' })).toBeHidden();
 	await screenshot(page, 'log-report-print', 1440);
 });
+
+test('no serious or critical accessibility problems on the log’s pages (axe, WCAG 2.1 A/AA)', async ({ page }) => {
+	test.setTimeout(240_000);
+	const { default: AxeBuilder } = await import('@axe-core/playwright');
+	await signIn(page, 'dp');
+	const project = await openDemoProject(page);
+	await page.goto(`${project}/days`);
+	const dayHref = await page.getByTestId('days-table').locator('tbody a').first().getAttribute('href');
+	await page.goto(dayHref!);
+	const setupHref = await page.getByTestId('setup-list').getByRole('link').first().getAttribute('href');
+	await page.goto(setupHref!);
+	const lightHref = await page.getByTestId('light-table').locator('tbody a').first().getAttribute('href');
+	const pages = [`${project}/days`, dayHref!, setupHref!, lightHref!, `${project}/review`, `${project}/activity`, `${project}/export`, `${project}/export/report`];
+	const problems: string[] = [];
+	for (const path of pages) {
+		await page.goto(path);
+		const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+		for (const v of result.violations.filter((x) => x.impact === 'serious' || x.impact === 'critical')) {
+			problems.push(`${path}: ${v.id} — ${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join(' | ')}`);
+		}
+	}
+	expect(problems).toEqual([]);
+});
