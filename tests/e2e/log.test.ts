@@ -54,6 +54,9 @@ test('the gaffer adds a light and a reading; the colorist comments on it in revi
 	await typed.getByLabel('Illuminance (lx)').fill('80');
 	await typed.getByRole('button', { name: 'Save the reading' }).click();
 	await expect(page.getByText('Reading saved.')).toBeVisible();
+	// The cleared form still offers CCT + Duv for the next reading.
+	await expect(typed.getByLabel('CCT + Duv')).toBeChecked();
+	await expect(typed.getByLabel('CCT (K)')).toHaveValue('');
 	const reading = page.getByTestId('readings').getByTestId('reading').first();
 	await expect(reading).toContainText('2,750');
 	// 2750 K against the 4000 K target: well outside the tolerance.
