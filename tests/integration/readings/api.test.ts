@@ -266,3 +266,19 @@ describe('personal access tokens', () => {
 		expect((await call(list.GET, base(), { params: params(), headers: { authorization: 'Bearer cs_nonsense' } })).status).toBe(401);
 	});
 });
+
+describe('a locked setup is frozen for readings', () => {
+	it('refuses new readings, imports and edits on it, with a sentence', async () => {
+		const created = await (await call(list.POST, base(), { params: params(), user: crew.gaffer, json: { label: 'Before the lock', raw: d65, setupId: p.otherSetupId } })).json();
+		await db('setups').where({ id: p.otherSetupId }).update({ locked_at: new Date(), locked_by: crew.dp.id });
+		try {
+			const add = await call(list.POST, base(), { params: params(), user: crew.gaffer, json: { label: 'After', raw: d65, setupId: p.otherSetupId } });
+			expect(add.status).toBe(409);
+			expect((await add.json()).error.message).toMatch(/lock/i);
+			const edit = await call(one.PATCH, `${base()}/${created.id}`, { params: { ...params(), readingId: String(created.id) }, user: crew.gaffer, method: 'PATCH', json: { version: created.version, label: 'Changed' } });
+			expect(edit.status).toBe(409);
+		} finally {
+			await db('setups').where({ id: p.otherSetupId }).update({ locked_at: null, locked_by: null });
+		}
+	});
+});

@@ -8,6 +8,7 @@ import * as lights from '$lib/server/db/lights';
 import * as readings from '$lib/server/db/readings';
 import * as setups from '$lib/server/db/setups';
 import * as users from '$lib/server/db/users';
+import { assertSetupOpen } from '$lib/server/services/log';
 import type { Reading } from '$lib/server/db/readings';
 import { confirmUpload, createReading, previewUpload, UnusableInputError } from '$lib/server/services/readings';
 import { createReadingSchema, type CreateReadingInput } from '$lib/schemas/readings';
@@ -57,6 +58,8 @@ async function checkAssignment(projectId: number, setupId: number | null | undef
 
 export async function createReadingChecked(projectId: number, userId: number, body: CreateReadingInput): Promise<Reading> {
 	const assign = await checkAssignment(projectId, body.setupId, body.lightId);
+	// A locked setup is frozen: no new readings on it.
+	await assertSetupOpen(projectId, assign.setupId);
 	try {
 		return await createReading(projectId, userId, { ...body, ...assign });
 	} catch (e) {
@@ -71,6 +74,9 @@ export async function patchReadingChecked(projectId: number, id: number, userId:
 		const assign = await checkAssignment(projectId, body.setupId === undefined ? current.setupId : body.setupId, body.lightId === undefined ? current.lightId : body.lightId);
 		body = { ...body, ...assign };
 	}
+	// Neither the setup a reading is in nor the one it moves to may be locked.
+	await assertSetupOpen(projectId, current.setupId);
+	if (body.setupId != null) await assertSetupOpen(projectId, body.setupId);
 	const { version, ...patch } = body;
 	const result = await readings.update(projectId, id, patch, version, userId);
 	if (!result) throw new ApiError(404, 'not_found', 'There is no such reading in this project.');
@@ -132,6 +138,7 @@ export async function previewUploadRequest(request: Request, projectId: number, 
 
 export async function confirmUploadChecked(projectId: number, uploadId: number, userId: number, assign: { setupId?: number | null; lightId?: number | null }) {
 	const checked = await checkAssignment(projectId, assign.setupId, assign.lightId);
+	await assertSetupOpen(projectId, checked.setupId);
 	try {
 		return await confirmUpload(projectId, uploadId, userId, checked);
 	} catch (e) {
