@@ -118,7 +118,7 @@ describe('ChromaticityChart', () => {
 		const readings = Array.from({ length: 600 }, (_, i) => reading(String(i), CCTToXy(2000 + i * 10, 0)));
 		const { container } = render(ChromaticityChart, { readings });
 		expect(screen.queryAllByTestId('xy-chart-point')).toHaveLength(0);
-		expect(container.querySelector('foreignObject[data-canvas-layer] canvas')).not.toBeNull();
+		expect(container.querySelector('canvas[data-canvas-marks]')).not.toBeNull();
 		const layer = screen.getByTestId('xy-chart-layer');
 		layer.focus();
 		await fireEvent.keyDown(layer, { key: 'ArrowRight' });

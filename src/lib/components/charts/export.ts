@@ -27,10 +27,11 @@ export function resolveVars(value: string, from: Element): string {
 
 /**
  * A standalone SVG document of `svg`: variables resolved, interactive attributes removed, the
- * canvas layer (a <foreignObject data-canvas-layer>) replaced by `marks` drawn as paths, and a
- * background in the page's surface colour.
+ * canvas layer's placeholder (<g data-canvas-layer>) filled with `marks` drawn as paths, the
+ * `overlay` SVG drawn above the canvas (if any) appended on top, and a background in the page's
+ * surface colour.
  */
-export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] = [], title = 'Chart'): string {
+export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] = [], title = 'Chart', overlay: SVGSVGElement | null = null): string {
 	const clone = svg.cloneNode(true) as SVGSVGElement;
 	const root = document.documentElement;
 	clone.removeAttribute('class');
@@ -40,6 +41,7 @@ export function serializeChart(svg: SVGSVGElement, marks: readonly VectorMark[] 
 		clone.setAttribute('width', String(vb.width));
 		clone.setAttribute('height', String(vb.height));
 	}
+	if (overlay) for (const child of overlay.childNodes) clone.appendChild(child.cloneNode(true));
 	for (const el of [clone, ...clone.querySelectorAll('*')]) {
 		for (const attr of [...el.attributes]) {
 			if (attr.name === 'tabindex' || attr.name === 'role' || attr.name.startsWith('aria-') || attr.name.startsWith('data-')) {
