@@ -47,11 +47,24 @@ function distanceToPolygon(x: number, y: number, p: ReadonlyArray<[number, numbe
 	return best;
 }
 
+const cache = new Map<string, Stamp>();
+
 /**
  * The masks of `shape` covering `area` square units drawn at `scale` pixels per unit, with an
- * outline `outline` pixels wide centred on the edge.
+ * outline `outline` pixels wide centred on the edge (cached: a redraw at the same size reuses them).
  */
 export function makeStamp(shape: PointShape, area: number, scale: number, outline = 1): Stamp {
+	const key = `${shape}:${area}:${scale}:${outline}`;
+	let hit = cache.get(key);
+	if (!hit) {
+		hit = buildStamp(shape, area, scale, outline);
+		if (cache.size > 256) cache.clear();
+		cache.set(key, hit);
+	}
+	return hit;
+}
+
+function buildStamp(shape: PointShape, area: number, scale: number, outline: number): Stamp {
 	if (!(area > 0) || !(scale > 0) || !(outline >= 0)) throw new RangeError(`bad mark size: area ${area}, scale ${scale}, outline ${outline}`);
 	const poly = shapePolygon(shape, area)?.map(([x, y]) => [x * scale, y * scale] as [number, number]) ?? null;
 	const r = circleRadius(area) * scale;
@@ -64,6 +77,14 @@ export function makeStamp(shape: PointShape, area: number, scale: number, outlin
 	const w = 1 / (SUB * SUB);
 	for (let j = 0; j < size; j++) {
 		for (let i = 0; i < size; i++) {
+			const cx = i + 0.5 - centre;
+			const cy = j + 0.5 - centre;
+			const dc = poly ? distanceToPolygon(cx, cy, poly) : Math.abs(Math.hypot(cx, cy) - r);
+			// A pixel whose centre is clear of the outline by more than its half-diagonal is wholly in or out.
+			if (dc > half + 0.71) {
+				fill[j * size + i] = (poly ? insidePolygon(cx, cy, poly) : cx * cx + cy * cy <= r * r) ? 1 : 0;
+				continue;
+			}
 			let f = 0;
 			let e = 0;
 			for (let sj = 0; sj < SUB; sj++) {
