@@ -78,6 +78,11 @@ export async function run() {
 	let base = process.env.CHART_BENCH_URL;
 	if (!base) {
 		base = `http://127.0.0.1:${PORT}`;
+		const busy = await fetch(base).then(
+			() => true,
+			() => false
+		);
+		if (busy) throw new Error(`port ${PORT} is in use: stop that server, or set CHART_BENCH_URL to measure against it`);
 		server = spawn('npx', ['vite', 'dev', '--port', String(PORT), '--strictPort', '--host', '127.0.0.1'], { stdio: 'ignore', detached: true });
 	}
 	const browser = await chromium.launch({
