@@ -17,15 +17,21 @@ afterAll(async () => {
 const ORIGIN = 'http://127.0.0.1:3999';
 
 describe('rate_limits table', () => {
-	it('counts hits per bucket and window, atomically under concurrency', async () => {
+	it('counts hits per bucket, atomically under concurrency, in a window that opens at the first hit', async () => {
 		const bucket = rateLimits.bucketOf('test', uniqueEmail());
 		const now = new Date('2026-12-01T10:07:30Z');
 		const counts = await Promise.all(Array.from({ length: 12 }, () => rateLimits.hit(bucket, 600, now)));
 		expect(counts.map((c) => c.hits).sort((a, b) => a - b)).toEqual(Array.from({ length: 12 }, (_, i) => i + 1));
-		expect(counts[0].resetsAt.toISOString()).toBe('2026-12-01T10:10:00.000Z');
-		expect((await rateLimits.read(bucket, 600, now)).hits).toBe(12);
-		// The next window starts from zero.
-		expect((await rateLimits.hit(bucket, 600, new Date('2026-12-01T10:10:00Z'))).hits).toBe(1);
+		for (const c of counts) expect(c.resetsAt.toISOString()).toBe('2026-12-01T10:17:30.000Z');
+		expect((await rateLimits.read(bucket, now)).hits).toBe(12);
+		// A clock boundary (10:10) opens no new window: the count goes on.
+		const later = await rateLimits.hit(bucket, 600, new Date('2026-12-01T10:10:00Z'));
+		expect(later).toEqual({ hits: 13, resetsAt: new Date('2026-12-01T10:17:30Z') });
+		// Once the window has ended, the next hit opens a new one from zero.
+		const next = await rateLimits.hit(bucket, 600, new Date('2026-12-01T10:17:30Z'));
+		expect(next).toEqual({ hits: 1, resetsAt: new Date('2026-12-01T10:27:30Z') });
+		expect((await rateLimits.read(bucket, new Date('2026-12-01T10:30:00Z'))).hits).toBe(0);
+		expect(await db('rate_limits').where({ bucket })).toHaveLength(1);
 	});
 
 	it('stores a hash of the bucket, never the address', async () => {
@@ -51,10 +57,13 @@ describe('countAttempt', () => {
 	it('allows the limit per address, then refuses with the time until the window ends', async () => {
 		const who = { address: uniqueEmail(), ip: uniqueIp() };
 		const { max, windowSeconds } = LIMITS['sign-in'].address;
-		const now = new Date('2026-12-01T10:00:05Z');
-		for (let i = 0; i < max; i++) expect((await countAttempt('sign-in', who, now)).allowed).toBe(true);
+		const first = new Date('2026-12-01T10:14:55Z');
+		const now = new Date('2026-12-01T10:15:05Z');
+		expect((await countAttempt('sign-in', who, first)).allowed).toBe(true);
+		for (let i = 1; i < max; i++) expect((await countAttempt('sign-in', who, now)).allowed).toBe(true);
+		// The window runs from the first attempt, across the quarter hour: the wait is the rest of it.
 		const refused = await countAttempt('sign-in', who, now);
-		expect(refused).toEqual({ allowed: false, retryAfterSeconds: windowSeconds - 5 });
+		expect(refused).toEqual({ allowed: false, retryAfterSeconds: windowSeconds - 10 });
 		// Another address from the same IP is still fine.
 		expect((await countAttempt('sign-in', { ...who, address: uniqueEmail() }, now)).allowed).toBe(true);
 		// Forgetting the address's attempts lets it in again.
