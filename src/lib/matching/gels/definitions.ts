@@ -92,7 +92,17 @@ export function fractionLossStops(full: number, f: number): number {
 /** Nominal figures for full strength (common practice, see header). */
 export const FULL_CTO_MIRED = 159;
 export const FULL_CTB_MIRED = -131;
+/**
+ * The source each conversion filter's Planck-ratio model is built on (T_from in `transmission.ts`).
+ * Full CTO: 6500 K, the conversion it is quoted for (6500 K → about 3200 K). The fractions of CTO
+ * are quoted on daylight, 5600 K, and CTB at every strength on tungsten, 3200 K (common practice:
+ * the sources they are mostly put on). The modelled shift is exact on that source and drifts a
+ * little on others (Planck vs Wien); on Planckians from 2000 K up to it every strength stays within
+ * 5 % of nominal (tested; ⅛ CTO, the weakest and so the furthest in relative terms, −3.5 % at 2000 K,
+ * where a 6500 K base would take it to −5.5 %).
+ */
 export const CTO_REFERENCE_K = 6500;
+export const CTO_FRACTION_REFERENCE_K = 5600;
 export const CTB_REFERENCE_K = 3200;
 export const FULL_CTO_LOSS_STOPS = 2 / 3;
 export const FULL_CTB_LOSS_STOPS = 1.5;
@@ -155,7 +165,7 @@ function conversionGel(family: 'CTO' | 'CTB', s: (typeof STRENGTHS)[number]): Ge
 			family === 'CTO'
 				? 'common practice: full CTO ≈ +159 mired (6500 K → 3200 K), ≈ ⅔ stop; fractions: shift proportional, loss = base + share'
 				: 'common practice: full CTB ≈ −131 mired (3200 K → 5500 K), 1–2 stops (disputed); fractions: shift proportional, loss = base + share',
-		model: { kind: 'conversion', fromK: family === 'CTO' ? CTO_REFERENCE_K : CTB_REFERENCE_K }
+		model: { kind: 'conversion', fromK: family === 'CTB' ? CTB_REFERENCE_K : s.f === 1 ? CTO_REFERENCE_K : CTO_FRACTION_REFERENCE_K }
 	};
 }
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { alignSpectrum, makeSpectrum } from '../../../../src/lib/colour';
 import { characteriseTransmission, customGel, normaliseTransmission, TransmissionError } from '../../../../src/lib/matching/gels/custom';
+import { CTO_FRACTION_REFERENCE_K } from '../../../../src/lib/matching/gels/definitions';
 import { getGel } from '../../../../src/lib/matching/gels/library';
 import { proposeGelsForSourceToTarget } from '../../../../src/lib/matching/gels/propose';
 import { cctTarget, planck, spectrumOf } from '../factories';
@@ -22,7 +23,7 @@ describe('characteriseTransmission', () => {
 		const fine = getGel('cto-half').transmission;
 		const coarse = alignSpectrum(fine, 380, 780, 5).spectrum;
 		const percent = makeSpectrum(380, 5, Array.from(coarse.values, (v) => v * 100));
-		const c = characteriseTransmission(percent, { percent: true, sourcesK: [6500] });
+		const c = characteriseTransmission(percent, { percent: true, sourcesK: [CTO_FRACTION_REFERENCE_K] });
 		expect(c.effects[0].miredShift).toBeCloseTo(79.5, 0);
 	});
 
