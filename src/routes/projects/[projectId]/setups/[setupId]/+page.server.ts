@@ -1,8 +1,8 @@
 import { error, redirect } from '@sveltejs/kit';
 import { projectAccess } from '$lib/server/authz';
-import { requestContext } from '$lib/server/auth/form';
+import { commentActions } from '$lib/server/comment-actions';
 import * as log from '$lib/server/services/log';
-import { circuitFormSchema, commentSchema, idFormSchema, lightFormSchema, setupFormSchema, setupPageQuerySchema, targetFormSchema, versionFormSchema } from '$lib/schemas/log';
+import { circuitFormSchema, idFormSchema, lightFormSchema, setupFormSchema, setupPageQuerySchema, targetFormSchema, versionFormSchema } from '$lib/schemas/log';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const setupId = (e: { params: { setupId: string } }) => log.parseId(e.params.setupId) ?? error(404, 'There is no such setup in this project.');
@@ -71,21 +71,5 @@ export const actions: Actions = {
 		const access = await projectAccess(event, 'power.edit');
 		return log.formAction(event.request, 'deleteCircuit', idFormSchema('circuitId'), async (_d, f) => void (await log.deleteCircuit(access, log.formId(f, 'circuitId'))), ids);
 	},
-	comment: async (event) => {
-		const access = await projectAccess(event, 'comment.create');
-		return log.formAction(
-			event.request,
-			'comment',
-			commentSchema,
-			async (d) => {
-				const r = await log.addComment(access, d, requestContext(event).origin);
-				return { commentId: r.comment.id, mentioned: r.mentioned };
-			},
-			(f) => ({ subjectType: String(f.get('subjectType') ?? ''), subjectId: log.formId(f, 'subjectId') })
-		);
-	},
-	deleteComment: async (event) => {
-		const access = await projectAccess(event, 'comment.create');
-		return log.formAction(event.request, 'deleteComment', idFormSchema('commentId'), async (_d, f) => void (await log.deleteComment(access, log.formId(f, 'commentId'))), ids);
-	}
+	...commentActions
 };

@@ -1,8 +1,8 @@
 import { error, redirect } from '@sveltejs/kit';
 import { projectAccess } from '$lib/server/authz';
-import { requestContext } from '$lib/server/auth/form';
+import { commentActions } from '$lib/server/comment-actions';
 import * as log from '$lib/server/services/log';
-import { commentSchema, idFormSchema, lightFormSchema, typedReadingFormSchema, versionFormSchema } from '$lib/schemas/log';
+import { lightFormSchema, typedReadingFormSchema, versionFormSchema } from '$lib/schemas/log';
 import type { Actions, PageServerLoad } from './$types';
 
 const notFound = () => error(404, 'There is no such light in this setup.');
@@ -38,21 +38,5 @@ export const actions: Actions = {
 			return { message: 'Reading saved.' };
 		});
 	},
-	comment: async (event) => {
-		const access = await projectAccess(event, 'comment.create');
-		return log.formAction(
-			event.request,
-			'comment',
-			commentSchema,
-			async (d) => {
-				const r = await log.addComment(access, d, requestContext(event).origin);
-				return { commentId: r.comment.id, mentioned: r.mentioned };
-			},
-			(f) => ({ subjectType: String(f.get('subjectType') ?? ''), subjectId: log.formId(f, 'subjectId') })
-		);
-	},
-	deleteComment: async (event) => {
-		const access = await projectAccess(event, 'comment.create');
-		return log.formAction(event.request, 'deleteComment', idFormSchema('commentId'), async (_d, f) => void (await log.deleteComment(access, log.formId(f, 'commentId'))));
-	}
+	...commentActions
 };
