@@ -4,10 +4,7 @@ import { db } from './index';
 import { parseJson, toJson } from './json';
 import type { LedSettings, LightKind, LightRole } from '../../schemas/log';
 
-export interface Light {
-	id: number;
-	projectId: number;
-	setupId: number;
+export interface LightFields {
 	label: string;
 	role: LightRole;
 	kind: LightKind;
@@ -20,6 +17,12 @@ export interface Light {
 	circuitId: number | null;
 	notes: string;
 	position: number;
+}
+
+export interface Light extends LightFields {
+	id: number;
+	projectId: number;
+	setupId: number;
 	deletedAt: Date | null;
 	version: number;
 	createdBy: number | null;
@@ -28,19 +31,6 @@ export interface Light {
 	updatedAt: Date;
 }
 
-export interface LightFields {
-	label: string;
-	role: LightRole;
-	kind: LightKind;
-	fixtureProfile: string | null;
-	gelStack: string[];
-	ledSettings: LedSettings | null;
-	dimmerPercent: number | null;
-	powerW: number | null;
-	circuitId: number | null;
-	notes: string;
-	position: number;
-}
 
 type Row = Record<string, unknown>;
 

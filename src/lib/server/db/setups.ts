@@ -5,9 +5,7 @@ import { parseJson, toJson } from './json';
 import { dateOnly } from './shoot-days';
 import type { SetupStatus, StoredTarget } from '../../schemas/log';
 
-export interface Setup {
-	id: number;
-	projectId: number;
+export interface SetupFields {
 	shootDayId: number;
 	name: string;
 	notes: string;
@@ -20,6 +18,11 @@ export interface Setup {
 	lockedAt: Date | null;
 	lockedBy: number | null;
 	position: number;
+}
+
+export interface Setup extends SetupFields {
+	id: number;
+	projectId: number;
 	version: number;
 	createdBy: number | null;
 	updatedBy: number | null;
@@ -32,20 +35,6 @@ export interface SetupSummary extends Setup {
 	dayDate: string;
 	dayLabel: string;
 	lightCount: number;
-}
-
-export interface SetupFields {
-	shootDayId: number;
-	name: string;
-	notes: string;
-	status: SetupStatus;
-	target: StoredTarget | null;
-	targetTolerance: number;
-	targetLockedAt: Date | null;
-	targetLockedBy: number | null;
-	lockedAt: Date | null;
-	lockedBy: number | null;
-	position: number;
 }
 
 type Row = Record<string, unknown>;
