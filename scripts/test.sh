@@ -4,7 +4,8 @@
 # tests against MariaDB, and browser tests in Debian's Chromium. Prints `N passed, N failed` last.
 #
 # While working on one part: `npm test -- integration e2e` runs only those suites (check, unit,
-# integration, e2e), and TEST_FILES="tests/integration/auth" narrows Vitest to matching files.
+# integration, e2e), TEST_FILES="tests/integration/auth" narrows Vitest to matching files and
+# E2E_FILES="tests/e2e/bench.test.ts" narrows Playwright.
 set -uo pipefail
 . "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 cd "$ROOT"
@@ -72,7 +73,7 @@ if want e2e; then
 		if [ -f scripts/seed.ts ]; then
 			node --import tsx scripts/seed.ts >/dev/null || echo '{"suite":"seed","passed":0,"failed":1}' > "$RESULTS/seed.json"
 		fi
-		PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/playwright.json" npx playwright test --reporter=list,json
+		PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/playwright.json" npx playwright test --reporter=list,json ${E2E_FILES:-}
 	else
 		echo '{"suite":"vite build","passed":0,"failed":1}' > "$RESULTS/build.json"
 	fi

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { openDemoProject, screenshot, signIn } from './helpers/session';
+import { gotoReady, openDemoProject, screenshot, signIn } from './helpers/session';
 
 // A meter export in a layout Chromaslate does not recognise by its headers: the gaffer maps it.
 const UNKNOWN_LAYOUT = 'Name;Chroma X;Chroma Y\nTube over the machines;0,3805;0,3768\nTypo row;1,4;0,3\nDoorway;0,3346;0,3512\n';
@@ -7,7 +7,7 @@ const UNKNOWN_LAYOUT = 'Name;Chroma X;Chroma Y\nTube over the machines;0,3805;0,
 test('a gaffer uploads a file, maps its columns, sees the row errors and confirms', async ({ page }) => {
 	await signIn(page, 'gaffer');
 	const project = await openDemoProject(page);
-	await page.goto(`${project}/readings/upload`);
+	await gotoReady(page, `${project}/readings/upload`);
 
 	await page.locator('#file').setInputFiles({ name: 'meter-export.csv', mimeType: 'text/csv', buffer: Buffer.from(UNKNOWN_LAYOUT, 'latin1') });
 	await expect(page.getByTestId('detected')).toContainText('not recognised');

@@ -4,9 +4,18 @@ import { expect, type Page } from '@playwright/test';
 export const DEMO_PASSWORD = 'night-wash-demo';
 export const demoEmail = (role: 'owner' | 'dp' | 'gaffer' | 'colorist' | 'viewer' | 'admin') => `demo.${role}@example.test`;
 
+/**
+ * Opens a page and waits until the app has hydrated it (the root layout marks <html>), so typing and
+ * file choices are not lost to a page still taking over from the server's HTML on a busy machine.
+ */
+export async function gotoReady(page: Page, url: string): Promise<void> {
+	await page.goto(url);
+	await page.locator('html[data-hydrated="true"]').waitFor({ state: 'attached' });
+}
+
 /** Signs in through the sign-in page, as a person would. */
 export async function signIn(page: Page, role: Parameters<typeof demoEmail>[0]): Promise<void> {
-	await page.goto('/sign-in');
+	await gotoReady(page, '/sign-in');
 	await page.locator('form[action="?/password"] input[name="email"]').fill(demoEmail(role));
 	await page.locator('form[action="?/password"] input[name="password"]').fill(DEMO_PASSWORD);
 	await page.locator('form[action="?/password"] button[type="submit"]').click();
