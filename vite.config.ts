@@ -6,6 +6,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
 	server: { host: '127.0.0.1' },
+	// The bundler's plugin timing report is for profiling a build, not for every `npm start`.
+	build: { rolldownOptions: { checks: { pluginTimings: false } } },
 	test: {
 		// Three projects: pure code on node, Svelte components in jsdom, and the database suite.
 		projects: [

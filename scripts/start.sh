@@ -43,7 +43,7 @@ fi
 
 if [ ! -f build/handler.js ] || [ -n "$(find src static svelte.config.js vite.config.ts tailwind.config.ts package-lock.json -newer build/handler.js -print -quit 2>/dev/null)" ]; then
 	say "Building the app ..."
-	npx vite build --logLevel error >/dev/null
+	build_app --logLevel error >/dev/null
 fi
 
 node --env-file-if-exists=.env build &

@@ -69,7 +69,7 @@ fi
 if want e2e; then
 	step "Browser tests (Playwright on /usr/bin/chromium)"
 	EXPECTED+=(playwright.json)
-	if npx vite build --logLevel warn; then
+	if build_app --logLevel warn; then
 		if [ -f scripts/seed.ts ]; then
 			node --import tsx scripts/seed.ts >/dev/null || echo '{"suite":"seed","passed":0,"failed":1}' > "$RESULTS/seed.json"
 		fi

@@ -42,6 +42,12 @@ ensure_debian_packages() {
 	DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${missing[@]}" >/dev/null || die "apt-get install ${missing[*]} failed."
 }
 
+# `vite build` with the adapter's notes about dependencies' own code (circular imports inside
+# packages, `this` at a module's top level) left out; everything else, and the exit code, kept.
+build_app() {
+	npx vite build "$@" 2> >(grep -v -e '^Circular dependency: node_modules/' -e "^node_modules/.*The 'this' keyword is equivalent to 'undefined'" >&2)
+}
+
 random_secret() { node -e 'process.stdout.write(require("crypto").randomBytes(Number(process.argv[1])).toString("base64url"))' "${1:-24}"; }
 
 # --- services -----------------------------------------------------------------------------------
