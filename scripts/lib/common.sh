@@ -4,6 +4,9 @@
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 DATA_DIR="${CHROMASLATE_DATA_DIR:-$ROOT/.data}"
 mkdir -p "$DATA_DIR"
+# The S3 client warns at every start that releases after January 2027 will need Node 22. The lock
+# file pins releases that run on this machine's Node 20, so the notice is only noise in our logs.
+export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED="${AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:-true}"
 
 say() { printf '\033[1;33m[chromaslate]\033[0m %s\n' "$*" >&2; }
 die() { printf '\033[1;31m[chromaslate]\033[0m %s\n' "$*" >&2; exit 1; }
