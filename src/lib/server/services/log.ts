@@ -12,7 +12,7 @@
 import { fail, type ActionFailure } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { displaySwatch } from '$lib/colour';
-import { distance, resolveTargetWhite, type TargetSpec, type TargetWhite } from '$lib/matching/target';
+import { distance, type TargetWhite } from '$lib/matching/target';
 import { gelDefinition } from '$lib/matching/gels/definitions';
 import { POWER_CAUTIONS, loadMessage, powerBudget, type PowerPlan } from '$lib/settools/power';
 import { formatWatts } from '$lib/settools/format';
@@ -39,6 +39,7 @@ import type { Setup, SetupFields } from '$lib/server/db/setups';
 import type { ShootDay, ShootDayFields } from '$lib/server/db/shoot-days';
 import type { Permission, ProjectAccess } from '$lib/server/authz';
 import { createReading, UnusableInputError } from '$lib/server/services/readings';
+import { resolveStoredTarget, TargetError } from '$lib/server/services/targets';
 import { formValues, parseForm } from '$lib/server/auth/form';
 import { sendMail } from '$lib/server/mail/transport';
 import { escapeHtml } from '$lib/server/mail/templates';
@@ -492,33 +493,22 @@ export function swatchOf(x: number, y: number): string | null {
 	}
 }
 
-/** The stored target resolved to a chromaticity (null when its reading is gone or it cannot be computed). */
-export async function resolveTarget(projectId: number, stored: StoredTarget, tolerance: number, readingLookup?: Map<number, Reading>): Promise<TargetView | null> {
-	let spec: TargetSpec;
-	switch (stored.kind) {
-		case 'reading': {
-			const r = readingLookup?.get(stored.readingId) ?? (await readings.read(projectId, stored.readingId));
-			if (!r) return null;
-			spec = { kind: 'reading', label: `reading “${r.label}”`, x: r.computed.x, y: r.computed.y };
-			break;
-		}
-		case 'cct_duv':
-			spec = { kind: 'cct', CCT: stored.cct_k, Duv: stored.duv };
-			break;
-		case 'xy':
-			spec = { kind: 'xy', x: stored.x, y: stored.y };
-			break;
-		case 'illuminant':
-			spec = { kind: 'illuminant', name: stored.name };
-			break;
-	}
-	let t: TargetWhite;
-	try {
-		t = resolveTargetWhite(spec, { tolerance });
-	} catch {
-		return null;
-	}
+/** The target white as the pages show it. */
+export function targetView(stored: StoredTarget, t: TargetWhite): TargetView {
 	return { stored, label: t.label, x: t.x, y: t.y, u_prime: t.u_prime, v_prime: t.v_prime, CCT: t.CCT, Duv: t.Duv, mired: t.mired, tolerance: t.tolerance, warnings: t.warnings, swatch: swatchOf(t.x, t.y) };
+}
+
+/**
+ * The stored target resolved (through the one resolver the fix solvers use too) for display: null
+ * when its reading was removed or it cannot be computed, which the pages show as a missing target.
+ */
+export async function resolveTarget(projectId: number, stored: StoredTarget, tolerance: number, readingLookup?: Map<number, Reading>): Promise<TargetView | null> {
+	try {
+		return targetView(stored, await resolveStoredTarget(projectId, stored, tolerance, readingLookup));
+	} catch (e) {
+		if (e instanceof TargetError) return null;
+		throw e;
+	}
 }
 
 export interface DistanceView {
