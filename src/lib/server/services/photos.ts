@@ -237,6 +237,30 @@ export function finalKeys(projectId: number, photoId: number, extension: string)
 	return { original: `${base}/original.${extension}`, thumbnail: `${base}/thumbnail.webp` };
 }
 
+/** The key prefixes under which a project's objects live (the trailing slash keeps project 1 off project 12). */
+export function projectPrefixes(projectId: number): string[] {
+	return [`projects/${projectId}/`, `incoming/${projectId}/`];
+}
+
+/**
+ * Deletes every stored object of a project: the keys its photo rows named (`knownKeys`, read before
+ * the rows went) and anything else under its prefixes (an upload that never finished, an object a
+ * failed delete left behind). Returns how many objects were asked to go. Without storage set up
+ * there is nothing to delete unless rows named keys, which is then an error.
+ */
+export async function removeProjectObjects(projectId: number, knownKeys: readonly string[] = []): Promise<number> {
+	try {
+		storage.bucket();
+	} catch (e) {
+		if (e instanceof StorageConfigError && knownKeys.length === 0) return 0;
+		throw e;
+	}
+	const listed = (await Promise.all(projectPrefixes(projectId).map((prefix) => storage.list(prefix)))).flat();
+	const keys = [...new Set([...knownKeys, ...listed])];
+	await storage.remove(keys);
+	return keys.length;
+}
+
 // --- API shapes -----------------------------------------------------------------------------------
 
 const id = z.number().int().positive().max(4_294_967_295);

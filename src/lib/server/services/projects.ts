@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { db } from '$lib/server/db';
 import * as invitations from '$lib/server/db/invitations';
 import * as members from '$lib/server/db/members';
+import * as photoRows from '$lib/server/db/photos';
 import * as projects from '$lib/server/db/projects';
 import * as users from '$lib/server/db/users';
 import type { Invitation } from '$lib/server/db/invitations';
@@ -17,6 +18,7 @@ import type { SessionUser } from '$lib/server/auth/types';
 import { ROLE_LABELS, ROLES, type ProjectAccess, type Role } from '$lib/server/authz';
 import { sendInvitation } from '$lib/server/mail';
 import { emailField } from './auth';
+import { removeProjectObjects } from './photos';
 
 export const projectSchema = z.object({
 	name: z
@@ -58,10 +60,22 @@ export async function setArchived(access: ProjectAccess, archived: boolean, vers
 	return project ? { ok: true, project } : { ok: false, reason: 'conflict' };
 }
 
-/** Deletes the project and everything in it, once the owner typed its name. */
+/**
+ * Deletes the project and everything in it, once the owner typed its name: the rows (the database
+ * cascades from the project) and then its photos' objects in storage (originals, thumbnails,
+ * unfinished uploads). Once the rows are gone nobody can reach the objects, so a storage failure
+ * is logged rather than undoing the delete.
+ */
 export async function deleteProject(access: ProjectAccess, confirmName: string): Promise<{ ok: true } | { ok: false; reason: 'name' }> {
 	if (confirmName.trim() !== access.project.name.trim()) return { ok: false, reason: 'name' };
-	await projects.destroy(access.project.id);
+	const id = access.project.id;
+	const keys = await photoRows.keysOf(id);
+	await projects.destroy(id);
+	try {
+		await removeProjectObjects(id, keys);
+	} catch (e) {
+		console.warn(`[projects] stored photos of deleted project ${id} were not all removed:`, e);
+	}
 	return { ok: true };
 }
 
