@@ -19,6 +19,7 @@ import sharp, { type Metadata } from 'sharp';
 import { z } from 'zod';
 import { ApiError } from '$lib/server/api';
 import type { ProjectAccess } from '$lib/server/authz';
+import * as activity from '$lib/server/db/activity';
 import * as lights from '$lib/server/db/lights';
 import * as photos from '$lib/server/db/photos';
 import * as setups from '$lib/server/db/setups';
@@ -407,6 +408,28 @@ async function mustRead(projectId: number, photoId: number): Promise<Photo> {
 	return photo;
 }
 
+/** “photo “wide.jpg” of light “Key” in setup “Wide”” (or of the setup alone), for the activity log. */
+async function photoSubject(photo: Photo): Promise<string> {
+	const name = `photo “${photo.originalName || `#${photo.id}`}”`;
+	const setup = photo.setupId === null ? null : await setups.read(photo.projectId, photo.setupId);
+	const light = photo.lightId === null ? null : await lights.read(photo.projectId, photo.lightId, { includeDeleted: true });
+	if (light) return `${name} of light “${light.label}”${setup ? ` in setup “${setup.name}”` : ''}`;
+	return setup ? `${name} of setup “${setup.name}”` : name;
+}
+
+/** Writes who added or deleted a photo, and of which setup and light, to the project's activity. */
+async function logPhoto(access: ProjectAccess, photo: Photo, action: 'photo.add' | 'photo.delete'): Promise<void> {
+	const what = await photoSubject(photo);
+	await activity.create(access.project.id, {
+		userId: access.user.id,
+		action,
+		subjectType: 'photo',
+		subjectId: photo.id,
+		summary: `${action === 'photo.add' ? 'Added' : 'Deleted'} ${what}${action === 'photo.add' && photo.caption ? `: ${photo.caption}` : ''}`,
+		details: { setupId: photo.setupId, lightId: photo.lightId, caption: photo.caption, originalName: photo.originalName }
+	});
+}
+
 async function reject(photo: Photo, r: PhotoRejection, hadLocation: boolean | null = null): Promise<never> {
 	await photos.markRejected(photo.projectId, photo.id, { code: r.code, reason: r.message, hadLocation });
 	await storage.remove([photo.incomingKey]);
@@ -439,7 +462,7 @@ export async function completeUpload(access: ProjectAccess, photoId: number): Pr
 		const keys = finalKeys(photo.projectId, photo.id, cleaned.original.extension);
 		await storage.write(keys.original, cleaned.original.bytes, { contentType: cleaned.original.contentType });
 		await storage.write(keys.thumbnail, cleaned.thumbnail.bytes, { contentType: cleaned.thumbnail.contentType });
-		await photos.markReady(photo.projectId, photo.id, {
+		const marked = await photos.markReady(photo.projectId, photo.id, {
 			originalKey: keys.original,
 			thumbnailKey: keys.thumbnail,
 			contentType: cleaned.original.contentType,
@@ -451,6 +474,8 @@ export async function completeUpload(access: ProjectAccess, photoId: number): Pr
 			hadLocation: cleaned.hadLocation
 		});
 		await storage.remove([photo.incomingKey]);
+		// Only the call that made it ready logs it (two finishing at once log one upload).
+		if (marked) await logPhoto(access, photo, 'photo.add');
 		return mustRead(photo.projectId, photo.id);
 	} catch (e) {
 		return asApiError(e);
@@ -496,10 +521,14 @@ export async function setCaption(access: ProjectAccess, photoId: number, caption
 	return mustRead(access.project.id, photoId);
 }
 
-/** Deletes the row and its objects. */
+/**
+ * Deletes the row and its objects. Deleting a photo that was ready is logged; an upload that never
+ * finished (pending or refused) was never in the log, so its removal is not either.
+ */
 export async function deletePhoto(access: ProjectAccess, photoId: number): Promise<void> {
 	const photo = await mustRead(access.project.id, photoId);
-	await photos.destroy(photo.projectId, photo.id);
+	const removed = await photos.destroy(photo.projectId, photo.id);
+	if (removed && photo.status === 'ready') await logPhoto(access, photo, 'photo.delete');
 	try {
 		await storage.remove([photo.incomingKey, photo.originalKey, photo.thumbnailKey]);
 	} catch (e) {
