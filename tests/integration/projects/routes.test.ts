@@ -12,6 +12,7 @@ import { closeMail } from '$lib/server/mail';
 import { PROJECT_ROLES, type ProjectRole } from '$lib/server/db/members';
 import * as overview from '../../../src/routes/projects/[projectId]/+page.server';
 import * as membersPage from '../../../src/routes/projects/[projectId]/members/+page.server';
+import * as settingsPage from '../../../src/routes/projects/[projectId]/settings/+page.server';
 import * as list from '../../../src/routes/projects/+page.server';
 import * as create from '../../../src/routes/projects/new/+page.server';
 import { uniqueEmail } from '../auth/helpers/factories';
@@ -40,6 +41,7 @@ interface Case {
 
 const ALL = PROJECT_ROLES;
 const OWNER = ['owner'] as const;
+const LEAD = ['owner', 'dp'] as const;
 const exists = async (c: Crew) => (await projects.read(c.project.id)) !== null;
 
 const CASES: Case[] = [
@@ -73,6 +75,21 @@ const CASES: Case[] = [
 		form: (c) => ({ confirmName: c.project.name }),
 		run: (e) => overview.actions.delete(e as never),
 		effect: async (c) => !(await exists(c))
+	},
+	{
+		name: 'settings (load)',
+		allowed: LEAD,
+		path: (c) => `/projects/${c.project.id}/settings`,
+		run: (e) => settingsPage.load(e as never),
+		effect: async () => true
+	},
+	{
+		name: 'rename and edit notes (settings)',
+		allowed: LEAD,
+		path: (c) => `/projects/${c.project.id}/settings`,
+		form: (c) => ({ name: 'Renamed in the matrix', notes: 'Invented.', version: c.project.version }),
+		run: (e) => settingsPage.actions.default(e as never),
+		effect: async (c) => (await projects.read(c.project.id))?.name === 'Renamed in the matrix'
 	},
 	{
 		name: 'members (load)',

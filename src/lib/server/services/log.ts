@@ -260,7 +260,7 @@ function differences(labels: Record<string, string | undefined>, yours: Record<s
 }
 
 /** Changes as `{ field: [before, after] }`, for the activity log. */
-function changes(labels: Record<string, string | undefined>, before: Record<string, unknown>, after: Record<string, unknown>): Record<string, [string, string]> {
+export function changes(labels: Record<string, string | undefined>, before: Record<string, unknown>, after: Record<string, unknown>): Record<string, [string, string]> {
 	const out: Record<string, [string, string]> = {};
 	for (const [field, label] of Object.entries(labels)) {
 		if (!label || !(field in after)) continue;
@@ -271,12 +271,13 @@ function changes(labels: Record<string, string | undefined>, before: Record<stri
 	return out;
 }
 
-function describeChanges(labels: Record<string, string | undefined>, ch: Record<string, [string, string]>): string {
+export function describeChanges(labels: Record<string, string | undefined>, ch: Record<string, [string, string]>): string {
 	const parts = Object.entries(ch).map(([f, [a, b]]) => (f === 'notes' ? 'notes' : `${(labels[f] ?? f).toLowerCase()} ${a} → ${b}`));
 	return parts.length ? parts.join('; ') : 'no visible change';
 }
 
-async function conflict(what: string, labels: Record<string, string | undefined>, yours: Record<string, unknown>, current: { version: number; updatedBy: number | null; updatedAt: Date } & object): Promise<never> {
+/** Throws the conflict of a save that lost the race: who saved first, when, and both versions field by field. */
+export async function raiseConflict(what: string, labels: Record<string, string | undefined>, yours: Record<string, unknown>, current: { version: number; updatedBy: number | null; updatedAt: Date } & object): Promise<never> {
 	const by = current.updatedBy ? await users.read(current.updatedBy) : null;
 	const details: ConflictDetails = {
 		changedBy: by ? { id: by.id, name: by.name || by.email } : null,
@@ -324,7 +325,7 @@ export async function updateDay(access: ProjectAccess, id: number, patch: Partia
 	return db.transaction(async (trx) => {
 		const r = await shootDays.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such shoot day in this project.');
-		if ('conflict' in r) return conflict('shoot day', DAY_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('shoot day', DAY_LABELS, patch, r.conflict);
 		const ch = changes(DAY_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'shoot_day', subjectId: id, summary: `Changed shoot day ${dayName(r.day)}: ${describeChanges(DAY_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.day;
@@ -400,7 +401,7 @@ export async function updateSetup(access: ProjectAccess, id: number, patch: Part
 	return db.transaction(async (trx) => {
 		const r = await setups.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such setup in this project.');
-		if ('conflict' in r) return conflict('setup', SETUP_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('setup', SETUP_LABELS, patch, r.conflict);
 		const ch = changes(SETUP_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'setup', subjectId: id, summary: `Changed setup “${r.setup.name}”: ${describeChanges(SETUP_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.setup;
@@ -421,7 +422,7 @@ async function saveSetupState(access: ProjectAccess, s: Setup, version: number, 
 	return db.transaction(async (trx) => {
 		const r = await setups.update(access.project.id, s.id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such setup in this project.');
-		if ('conflict' in r) return conflict('setup', { ...SETUP_LABELS, target: 'Target white' } as Record<string, string>, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('setup', { ...SETUP_LABELS, target: 'Target white' } as Record<string, string>, patch, r.conflict);
 		await log(access, { subjectType: 'setup', subjectId: s.id, ...entry }, trx);
 		return r.setup;
 	});
@@ -582,7 +583,7 @@ export async function updateLight(access: ProjectAccess, id: number, patch: Part
 	return db.transaction(async (trx) => {
 		const r = await lights.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such light in this project.');
-		if ('conflict' in r) return conflict('light', LIGHT_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('light', LIGHT_LABELS, patch, r.conflict);
 		const ch = changes(LIGHT_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'light', subjectId: id, summary: `Changed light “${r.light.label}”: ${describeChanges(LIGHT_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.light;
@@ -686,7 +687,7 @@ export async function updateCircuit(access: ProjectAccess, id: number, given: Pa
 	return db.transaction(async (trx) => {
 		const r = await circuits.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such circuit in this project.');
-		if ('conflict' in r) return conflict('circuit', CIRCUIT_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('circuit', CIRCUIT_LABELS, patch, r.conflict);
 		const ch = changes(CIRCUIT_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'circuit', subjectId: id, summary: `Changed circuit “${r.circuit.label}”: ${describeChanges(CIRCUIT_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.circuit;
