@@ -227,6 +227,45 @@ export async function cleanImage(bytes: Uint8Array, { maxPixels = MAX_PHOTO_PIXE
 	}
 }
 
+/**
+ * A photo coming back from a project backup, before it is written to storage: the original must be
+ * a JPEG, PNG or WebP within the limits (its type is taken from the bytes, never from the file), and
+ * a photo that carries a location is cleaned as on upload. Backups made here hold photos cleaned
+ * already, so their bytes are kept exactly; a missing or unreadable thumbnail is made again.
+ * Throws PhotoRejection otherwise.
+ */
+export async function restoredPhoto(original: Uint8Array, thumbnail: Uint8Array | null): Promise<Omit<CleanedImage, 'hadLocation' | 'format'>> {
+	if (original.byteLength === 0) throw new PhotoRejection(422, 'not_an_image', NOT_AN_IMAGE);
+	if (original.byteLength > MAX_PHOTO_BYTES) throw new PhotoRejection(413, 'too_large', `A photo in the backup is ${megabytes(original.byteLength)}; photos can be up to ${megabytes(MAX_PHOTO_BYTES)}.`);
+	let meta: Metadata;
+	try {
+		meta = await sharp(Buffer.from(original), { limitInputPixels: MAX_PHOTO_PIXELS }).metadata();
+	} catch {
+		throw new PhotoRejection(422, 'not_an_image', NOT_AN_IMAGE);
+	}
+	if ((meta.format !== 'jpeg' && meta.format !== 'png' && meta.format !== 'webp') || !meta.width || !meta.height) {
+		throw new PhotoRejection(415, 'unsupported_type', 'A photo in the backup is not a JPEG, PNG or WebP image.');
+	}
+	if (await hasLocation(original, meta)) {
+		const cleaned = await cleanImage(original);
+		return { original: cleaned.original, thumbnail: cleaned.thumbnail };
+	}
+	const out = meta.format;
+	let thumb: CleanedImage['thumbnail'] | null = null;
+	if (thumbnail?.byteLength) {
+		const t = await sharp(Buffer.from(thumbnail)).metadata().catch(() => null);
+		if (t?.format === 'webp' && t.width && t.height) thumb = { bytes: thumbnail, contentType: 'image/webp', width: t.width, height: t.height };
+	}
+	if (!thumb) {
+		const t = await sharp(Buffer.from(original), { limitInputPixels: MAX_PHOTO_PIXELS }).rotate().resize({ width: THUMBNAIL_WIDTH, withoutEnlargement: true }).webp({ quality: 75 }).toBuffer({ resolveWithObject: true });
+		thumb = { bytes: new Uint8Array(t.data), contentType: 'image/webp', width: t.info.width, height: t.info.height };
+	}
+	return {
+		original: { bytes: original, contentType: `image/${out}`, extension: out === 'jpeg' ? 'jpg' : out, width: meta.width, height: meta.height },
+		thumbnail: thumb
+	};
+}
+
 // --- keys ---------------------------------------------------------------------------------------
 
 export function incomingKey(projectId: number, photoId: number): string {
