@@ -28,7 +28,9 @@ import { call } from '../helpers/route';
 import { fixtureForm, gelForm } from '../library/helpers';
 import { modelledGelCsv, rgbwCsv } from '../../unit/server/library/factories';
 import { askUpload, finish, put, uploadPhoto, type Grant } from '../photos/helpers';
-import { notAnImage, photoWithoutGps } from '../../unit/server/photos/images';
+import { notAnImage, photoWithGps, photoWithoutGps, TEST_GPS_DECIMAL } from '../../unit/server/photos/images';
+import exifr from 'exifr';
+import sharp from 'sharp';
 import { waitForMail } from '../auth/helpers/mail';
 import { act, get, load } from './helpers';
 
@@ -290,6 +292,21 @@ describe('backup and restore', () => {
 		expect(next).toBeGreaterThan(p.projectId + 1);
 		for (let id = p.projectId + 1; id < next; id++) expect(await storage.list(`projects/${id}/`)).toEqual([]);
 		expect(await storage.list(`projects/${p.projectId}/`)).toHaveLength(2);
+	});
+
+	it('a photo in a file that still carries a location is cleaned on the way in; a missing thumbnail is made again', async () => {
+		const p = await makeProject(db, 'GPS photo');
+		await uploadPhoto(p.projectId, p.crew.gaffer, await photoWithoutGps(), { setupId: p.setupId });
+		const b = structuredClone(await backupProject(await loadProjectFor(p.crew.owner, p.projectId)));
+		const withGps = await photoWithGps('jpeg', 640, 480);
+		expect(await exifr.gps(withGps)).toEqual(TEST_GPS_DECIMAL);
+		b.tables.photos[0].objects = { original: { base64: withGps.toString('base64') }, thumbnail: null };
+		const { projectId } = await restoreProject(p.crew.owner, parseBackup(JSON.stringify(b)));
+		const row = await db('photos').where({ project_id: projectId }).first();
+		const stored = Buffer.from((await storage.read(row.original_key, MAX_PHOTO_BYTES))!);
+		expect(await exifr.gps(stored)).toBeUndefined();
+		expect(row).toMatchObject({ status: 'ready', content_type: 'image/jpeg', width: 640, height: 480, thumbnail_width: 480, thumbnail_height: 360, bytes: stored.byteLength });
+		expect((await sharp((await storage.read(row.thumbnail_key, MAX_PHOTO_BYTES))!).metadata()).format).toBe('webp');
 	});
 
 	it('the backup route answers a download; bad files are refused in a sentence and change nothing', async () => {
