@@ -4,7 +4,8 @@
 # tests against MariaDB, and browser tests in Debian's Chromium. Prints `N passed, N failed` last.
 #
 # While working on one part: `npm test -- integration e2e` runs only those suites (check, unit,
-# integration, e2e), and TEST_FILES="tests/integration/auth" narrows Vitest to matching files.
+# integration, e2e), and TEST_FILES="tests/integration/auth" narrows Vitest to matching files
+# (entries under tests/e2e narrow Playwright).
 set -uo pipefail
 . "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 cd "$ROOT"
@@ -72,7 +73,10 @@ if want e2e; then
 		if [ -f scripts/seed.ts ]; then
 			node --import tsx scripts/seed.ts >/dev/null || echo '{"suite":"seed","passed":0,"failed":1}' > "$RESULTS/seed.json"
 		fi
-		PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/playwright.json" npx playwright test --reporter=list,json
+		# TEST_FILES entries under tests/e2e narrow the browser tests the same way.
+		E2E_FILES=()
+		for f in ${TEST_FILES:-}; do case "$f" in tests/e2e*) E2E_FILES+=("$f") ;; esac; done
+		PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/playwright.json" npx playwright test --reporter=list,json "${E2E_FILES[@]}"
 	else
 		echo '{"suite":"vite build","passed":0,"failed":1}' > "$RESULTS/build.json"
 	fi
