@@ -414,7 +414,7 @@ export const reviewQuerySchema = z.object({
 	page: pageQuery.page
 });
 export const activityQuerySchema = z.object({
-	type: z.enum(['project', 'shoot_day', 'setup', 'light', 'circuit', 'reading', 'comment', 'fix']).optional().catch(undefined),
+	type: z.enum(['project', 'shoot_day', 'setup', 'light', 'circuit', 'reading', 'comment', 'fix', 'photo']).optional().catch(undefined),
 	user: z.coerce.number().int().positive().optional().catch(undefined),
 	q: z.string().trim().max(200).catch('').default(''),
 	order: z.enum(['asc', 'desc']).catch('desc').default('desc'),

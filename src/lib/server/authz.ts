@@ -38,6 +38,8 @@ export const PERMISSIONS = [
 	// invite and change members
 	'member.invite',
 	'member.change',
+	// rename the project and edit its notes
+	'project.edit',
 	// archive or delete the project
 	'project.archive',
 	'project.delete'
@@ -47,9 +49,13 @@ export type Permission = (typeof PERMISSIONS)[number];
 const VIEW = ['project.view'] as const;
 const REVIEW = [...VIEW, 'comment.create', 'export.create'] as const;
 const CREW = [...REVIEW, 'light.edit', 'reading.edit', 'photo.edit', 'power.edit', 'fix.request', 'fix.accept'] as const;
-const LEAD = [...CREW, 'target.set', 'target.lock', 'setup.lock'] as const;
+const LEAD = [...CREW, 'target.set', 'target.lock', 'setup.lock', 'project.edit'] as const;
 
-/** The role table. Owner: everything. DP: everything but members and the project's fate. */
+/**
+ * The role table. Owner: everything. DP: everything but members and the project's fate (the DP may
+ * rename the project and edit its notes, as part of leading the look; archiving and deleting stay
+ * with the owner).
+ */
 export const ROLE_PERMISSIONS: Readonly<Record<Role, ReadonlySet<Permission>>> = {
 	owner: new Set<Permission>([...LEAD, 'member.invite', 'member.change', 'project.archive', 'project.delete']),
 	dp: new Set<Permission>(LEAD),

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cieIlluminant, planckianSpectrum } from '../../../src/lib/colour';
 import { closeDb } from '../../../src/lib/server/db';
+import * as log from '../../../src/lib/server/services/log';
 import * as fixesRoute from '../../../src/routes/api/v1/projects/[projectId]/fixes/+server';
 import * as readingsRoute from '../../../src/routes/api/v1/projects/[projectId]/readings/+server';
 import { testKnex } from '../helpers/db';
@@ -90,6 +91,27 @@ describe('POST /api/v1/projects/:id/fixes', () => {
 		expect((await noTarget.json()).error.code).toBe('no_target');
 		const noFixture = await call(fixesRoute.POST, path(), { params: params(), user: p.crew.gaffer, json: { lightId: tungstenId, kind: 'led' } });
 		expect(noFixture.status).toBe(400);
+	});
+
+	it('agrees with the lighting log about the target: same chromaticity, and a removed target reading is missing for both', async () => {
+		const setup = await db('setups').where({ id: p.setupId }).first();
+		const stored = typeof setup.target === 'string' ? JSON.parse(setup.target) : setup.target;
+		const shown = await log.resolveTarget(p.projectId, stored, 0.002);
+		const res = await call(fixesRoute.POST, path(), { params: params(), user: p.crew.gaffer, json: { lightId: tungstenId, kind: 'gel' } });
+		const { result } = await res.json();
+		expect(shown?.label).toBe('reading “House tubes”');
+		expect(result.target.x).toBeCloseTo(shown!.x, 10);
+		expect(result.target.y).toBeCloseTo(shown!.y, 10);
+
+		await db('readings').where({ id: stored.readingId }).update({ deleted_at: new Date() });
+		try {
+			expect(await log.resolveTarget(p.projectId, stored, 0.002)).toBeNull();
+			const gone = await call(fixesRoute.POST, path(), { params: params(), user: p.crew.gaffer, json: { lightId: tungstenId, kind: 'gel' } });
+			expect(gone.status).toBe(409);
+			expect((await gone.json()).error).toMatchObject({ code: 'target_missing', message: expect.stringMatching(/no longer exists/) });
+		} finally {
+			await db('readings').where({ id: stored.readingId }).update({ deleted_at: null });
+		}
 	});
 
 	it('is for the crew: colorist and viewer 403, stranger 404, nobody 401', async () => {

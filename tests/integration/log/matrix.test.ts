@@ -23,6 +23,7 @@ import * as exportPage from '../../../src/routes/projects/[projectId]/export/+pa
 import * as reportPage from '../../../src/routes/projects/[projectId]/export/report/+page.server';
 import * as csvRoute from '../../../src/routes/projects/[projectId]/export/log.csv/+server';
 import * as backupRoute from '../../../src/routes/projects/[projectId]/export/backup.json/+server';
+import * as apiProject from '../../../src/routes/api/v1/projects/[projectId]/+server';
 import * as apiDays from '../../../src/routes/api/v1/projects/[projectId]/days/+server';
 import * as apiDay from '../../../src/routes/api/v1/projects/[projectId]/days/[dayId]/+server';
 import * as apiSetups from '../../../src/routes/api/v1/projects/[projectId]/setups/+server';
@@ -148,6 +149,16 @@ const cases: Case[] = [
 	{ name: 'export ?/restore', allowed: ALL, kind: 'page', run: (u) => act(exportPage.actions as never, 'restore', '/e', { params: { projectId: pid }, user: u, form: { backup: backupFile(), name: '' } }) },
 
 	// JSON API
+	{ name: 'GET /api/…/project', allowed: ALL, kind: 'api', run: (u) => api(apiProject.GET as never, '/api', { params: { projectId: pid }, user: u }) },
+	{
+		name: 'PATCH /api/…/project',
+		allowed: LEAD,
+		kind: 'api',
+		run: async (u) => {
+			const { version } = await db('projects').where({ id: p.projectId }).first('version');
+			return api(apiProject.PATCH as never, '/api', { params: { projectId: pid }, user: u, method: 'PATCH', json: { version, notes: `Invented; edited by ${u?.name ?? 'nobody'}` } });
+		}
+	},
 	{ name: 'GET /api/…/days', allowed: ALL, kind: 'api', run: (u) => api(apiDays.GET as never, '/api', { params: { projectId: pid }, user: u }) },
 	{ name: 'POST /api/…/days', allowed: CREW, kind: 'api', run: (u) => api(apiDays.POST as never, '/api', { params: { projectId: pid }, user: u, json: { date: '2026-12-06', mainsVoltage: 230, mainsFrequency: 50 } }) },
 	{ name: 'GET /api/…/days/:id', allowed: ALL, kind: 'api', run: (u) => api(apiDay.GET as never, '/api', { params: { projectId: pid, dayId: String(p.dayId) }, user: u }) },
@@ -193,7 +204,7 @@ describe('role × route', () => {
 		// Every exported action and handler of the log's route modules has its case.
 		const pages: [string, { actions?: object }][] = [['days', daysPage], ['day', dayPage], ['setup', setupPage], ['light', lightPage], ['review', reviewPage], ['export', exportPage]];
 		const apis: [string, object][] = [
-			['/api/…/days', apiDays], ['/api/…/days/:id', apiDay], ['/api/…/setups', apiSetups], ['/api/…/setups/:id', apiSetup],
+			['/api/…/project', apiProject], ['/api/…/days', apiDays], ['/api/…/days/:id', apiDay], ['/api/…/setups', apiSetups], ['/api/…/setups/:id', apiSetup],
 			['/api/…/setups/:id/target', apiTarget], ['/api/…/setups/:id/target-lock', apiTargetLock], ['/api/…/setups/:id/lock', apiLock],
 			['/api/…/lights', apiLights], ['/api/…/lights/:id', apiLight], ['/api/…/lights/:id/fixes', apiFixes], ['/api/…/comments', apiComments], ['/api/…/comments/:id', apiComment]
 		];

@@ -12,7 +12,10 @@ import { closeMail } from '$lib/server/mail';
 import { PROJECT_ROLES, type ProjectRole } from '$lib/server/db/members';
 import * as overview from '../../../src/routes/projects/[projectId]/+page.server';
 import * as membersPage from '../../../src/routes/projects/[projectId]/members/+page.server';
+import * as settingsPage from '../../../src/routes/projects/[projectId]/settings/+page.server';
 import * as list from '../../../src/routes/projects/+page.server';
+import * as accountPage from '../../../src/routes/account/+page.server';
+import * as users from '$lib/server/db/users';
 import * as create from '../../../src/routes/projects/new/+page.server';
 import { uniqueEmail } from '../auth/helpers/factories';
 import { fakeEvent, makeCrew, outcome, sessionUser, type Crew, type Outcome } from './helpers';
@@ -40,6 +43,7 @@ interface Case {
 
 const ALL = PROJECT_ROLES;
 const OWNER = ['owner'] as const;
+const LEAD = ['owner', 'dp'] as const;
 const exists = async (c: Crew) => (await projects.read(c.project.id)) !== null;
 
 const CASES: Case[] = [
@@ -73,6 +77,21 @@ const CASES: Case[] = [
 		form: (c) => ({ confirmName: c.project.name }),
 		run: (e) => overview.actions.delete(e as never),
 		effect: async (c) => !(await exists(c))
+	},
+	{
+		name: 'settings (load)',
+		allowed: LEAD,
+		path: (c) => `/projects/${c.project.id}/settings`,
+		run: (e) => settingsPage.load(e as never),
+		effect: async () => true
+	},
+	{
+		name: 'rename and edit notes (settings)',
+		allowed: LEAD,
+		path: (c) => `/projects/${c.project.id}/settings`,
+		form: (c) => ({ name: 'Renamed in the matrix', notes: 'Invented.', version: c.project.version }),
+		run: (e) => settingsPage.actions.default(e as never),
+		effect: async (c) => (await projects.read(c.project.id))?.name === 'Renamed in the matrix'
 	},
 	{
 		name: 'members (load)',
@@ -162,6 +181,53 @@ describe('project routes: each role and a stranger', () => {
 		const admin = { ...sessionUser(crew.stranger), isAdmin: true };
 		const e = fakeEvent({ user: admin, path: `/projects/${crew.project.id}`, params: { projectId: String(crew.project.id) } });
 		expect(await outcome(() => overview.load(e as never))).toEqual({ kind: 'error', status: 404 });
+	});
+});
+
+/**
+ * Routes of one's own account, on no project: every role of a project and a stranger alike may use
+ * them (each on their own account only), someone signed out is sent to sign in.
+ */
+const ACCOUNT_CASES: { name: string; path: string; form?: (me: { name: string }) => Record<string, string>; run: (e: ReturnType<typeof fakeEvent>) => unknown; effect: (id: number) => Promise<boolean> }[] = [
+	{ name: 'account (load)', path: '/account', run: (e) => accountPage.load(e as never), effect: async () => true },
+	{
+		name: 'account ?/name',
+		path: '/account?/name',
+		form: (me) => ({ name: `${me.name} (renamed)` }),
+		run: (e) => accountPage.actions.name(e as never),
+		effect: async (id) => (await users.read(id))?.name.endsWith('(renamed)') === true
+	}
+];
+
+describe('account routes: each role, a stranger, and nobody', () => {
+	for (const kase of ACCOUNT_CASES) {
+		it(`${kase.name}: every signed-in person on their own account; nobody is sent to sign in`, async () => {
+			const crew = await makeCrew();
+			for (const actor of ACTORS) {
+				const me = actor === 'stranger' ? crew.stranger : crew.byRole[actor];
+				const result = await outcome(() => kase.run(fakeEvent({ user: sessionUser(me), path: kase.path, form: kase.form?.(me) })));
+				expect(result.kind, `${actor}: ${JSON.stringify(result)}`).toBe('ok');
+				expect(await kase.effect(me.id), actor).toBe(true);
+			}
+			const out = await outcome(() => kase.run(fakeEvent({ user: null, path: kase.path, form: kase.form?.({ name: 'x' }) })));
+			expect(out).toEqual({ kind: 'redirect', location: `/sign-in?${new URLSearchParams({ redirectTo: kase.path })}` });
+		});
+	}
+	it('covers every action of the account page', () => {
+		expect(Object.keys(accountPage.actions).sort()).toEqual(['name', 'password']);
+	});
+
+	it('account ?/password: signed out is sent to sign in; signed in reaches the check of the current password', async () => {
+		const crew = await makeCrew();
+		const form = { currentPassword: 'wrong one here', newPassword: 'a long enough new one', repeatPassword: 'a long enough new one' };
+		for (const actor of ACTORS) {
+			const me = actor === 'stranger' ? crew.stranger : crew.byRole[actor];
+			const r = await outcome(() => accountPage.actions.password(fakeEvent({ user: sessionUser(me), path: '/account?/password', form }) as never));
+			// makeCrew's people sign in by e-mail link only: each is told to set a password by reset link.
+			expect(r, actor).toMatchObject({ kind: 'fail', status: 400 });
+		}
+		const out = await outcome(() => accountPage.actions.password(fakeEvent({ user: null, path: '/account?/password', form }) as never));
+		expect(out).toEqual({ kind: 'redirect', location: '/sign-in?redirectTo=%2Faccount%3F%2Fpassword' });
 	});
 });
 

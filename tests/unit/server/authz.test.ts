@@ -13,6 +13,9 @@ const TABLE: Record<string, { permissions: Permission[]; roles: Role[] }> = {
 	},
 	'ask for fixes, accept a fix': { permissions: ['fix.request', 'fix.accept'], roles: ['owner', 'dp', 'gaffer'] },
 	'set or lock a target white, lock a setup': { permissions: ['target.set', 'target.lock', 'setup.lock'], roles: ['owner', 'dp'] },
+	// Not a row of the product's table: the DP leads the look and keeps the project's name and notes
+	// current with the owner; the project's fate stays the owner's alone.
+	'rename the project and edit its notes': { permissions: ['project.edit'], roles: ['owner', 'dp'] },
 	'invite and change members': { permissions: ['member.invite', 'member.change'], roles: ['owner'] },
 	'archive or delete the project': { permissions: ['project.archive', 'project.delete'], roles: ['owner'] }
 };

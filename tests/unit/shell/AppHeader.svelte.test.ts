@@ -42,5 +42,7 @@ describe('AppHeader account area', () => {
 		expect(screen.queryByTestId('header-sign-in')).toBeNull();
 		expect(screen.getByRole('button', { name: 'Sign out' })).toBeInTheDocument();
 		expect(screen.getByTestId('header-account')).toHaveAttribute('action', '/sign-out');
+		expect(screen.getByTestId('header-account-link')).toHaveAttribute('href', '/account');
+		expect(screen.getByTestId('header-account-link')).toHaveAttribute('title', 'Your account: demo.gaffer@example.test');
 	});
 });

@@ -18,7 +18,7 @@ export const LIFETIMES = {
 	sessionRefresh: 86_400
 } as const;
 
-export type LimitedStep = 'sign-in' | 'magic-link' | 'sign-up' | 'reset' | 'confirm-resend';
+export type LimitedStep = 'sign-in' | 'magic-link' | 'sign-up' | 'reset' | 'confirm-resend' | 'password-change';
 
 interface Limit {
 	max: number;
@@ -34,7 +34,9 @@ export const LIMITS: Readonly<Record<LimitedStep, { address: Limit; ip: Limit }>
 	'magic-link': { address: { max: 3, windowSeconds: 900 }, ip: { max: 50, windowSeconds: 900 } },
 	'sign-up': { address: { max: 3, windowSeconds: 3600 }, ip: { max: 30, windowSeconds: 3600 } },
 	reset: { address: { max: 3, windowSeconds: 900 }, ip: { max: 50, windowSeconds: 900 } },
-	'confirm-resend': { address: { max: 3, windowSeconds: 3600 }, ip: { max: 50, windowSeconds: 3600 } }
+	'confirm-resend': { address: { max: 3, windowSeconds: 3600 }, ip: { max: 50, windowSeconds: 3600 } },
+	// Someone holding a signed-in browser must not get unlimited guesses at the current password.
+	'password-change': { address: { max: 5, windowSeconds: 900 }, ip: { max: 50, windowSeconds: 900 } }
 };
 
 export type LimitCheck = { allowed: true } | { allowed: false; retryAfterSeconds: number };

@@ -3,7 +3,7 @@ import type { Knex } from 'knex';
 import { db } from './index';
 import { parseJson, toJson } from './json';
 
-export type ActivitySubject = 'project' | 'shoot_day' | 'setup' | 'light' | 'circuit' | 'reading' | 'comment' | 'fix';
+export type ActivitySubject = 'project' | 'shoot_day' | 'setup' | 'light' | 'circuit' | 'reading' | 'comment' | 'fix' | 'photo';
 
 export interface Activity {
 	id: number;

@@ -88,3 +88,9 @@ export async function countOwners(projectId: number, q: Knex = db): Promise<numb
 	const [row] = q.isTransaction ? await query.forUpdate() : await query;
 	return Number(row?.n ?? 0);
 }
+
+/** Whether two people are members of at least one project together. */
+export async function shareAProject(a: number, b: number, q: Knex = db): Promise<boolean> {
+	const row = await q('project_members as x').join('project_members as y', 'y.project_id', 'x.project_id').where({ 'x.user_id': a, 'y.user_id': b }).first('x.project_id');
+	return Boolean(row);
+}

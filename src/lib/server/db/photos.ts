@@ -193,6 +193,12 @@ export async function destroy(projectId: number, id: number): Promise<boolean> {
 	return (await db('photos').where({ project_id: projectId, id }).delete()) > 0;
 }
 
+/** Every object key the project's photo rows name (incoming, cleaned original, thumbnail). */
+export async function keysOf(projectId: number, trx: Knex | Knex.Transaction = db): Promise<string[]> {
+	const rows = await trx('photos').where({ project_id: projectId }).select('incoming_key', 'original_key', 'thumbnail_key');
+	return rows.flatMap((r: Row) => [r.incoming_key, r.original_key, r.thumbnail_key]).filter((k): k is string => typeof k === 'string' && k !== '' && k !== 'pending');
+}
+
 /** Pending photos whose upload was granted before `before` and never finished. */
 export async function stalePending(before: Date, limit = 50): Promise<Photo[]> {
 	const rows = await selectPhotos(db).where('p.status', 'pending').where('p.created_at', '<', before).orderBy('p.id').limit(limit);

@@ -12,6 +12,8 @@ export interface Project {
 	notes: string;
 	archivedAt: Date | null;
 	createdBy: number | null;
+	/** Who last changed the name, notes or archived state (null: nobody since it was made, or an account gone). */
+	updatedBy: number | null;
 	version: number;
 	createdAt: Date;
 	updatedAt: Date;
@@ -29,6 +31,7 @@ interface Row {
 	notes: string | null;
 	archived_at: Date | null;
 	created_by: number | null;
+	updated_by: number | null;
 	version: number;
 	created_at: Date;
 	updated_at: Date;
@@ -41,6 +44,7 @@ function toProject(row: Row): Project {
 		notes: row.notes ?? '',
 		archivedAt: row.archived_at,
 		createdBy: row.created_by,
+		updatedBy: row.updated_by ?? null,
 		version: row.version,
 		createdAt: row.created_at,
 		updatedAt: row.updated_at
@@ -98,6 +102,8 @@ export interface ProjectChanges {
 	name?: string;
 	notes?: string;
 	archivedAt?: Date | null;
+	/** Who is making the change. */
+	updatedBy?: number | null;
 }
 
 /**
@@ -109,6 +115,7 @@ export async function update(id: number, expectedVersion: number, changes: Proje
 	if (changes.name !== undefined) row.name = changes.name.trim();
 	if (changes.notes !== undefined) row.notes = changes.notes.trim() || null;
 	if (changes.archivedAt !== undefined) row.archived_at = changes.archivedAt;
+	if (changes.updatedBy !== undefined) row.updated_by = changes.updatedBy;
 	const changed = await q('projects').where({ id, version: expectedVersion }).update(row);
 	return changed === 1 ? read(id, q) : null;
 }

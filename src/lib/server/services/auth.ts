@@ -44,6 +44,17 @@ export const signUpSchema = z.object({ name: nameField, email: emailField, passw
 export const emailOnlySchema = z.object({ email: emailField });
 export const newPasswordSchema = z.object({ password: passwordField });
 
+/** The account page's forms. */
+export const displayNameSchema = z.object({ name: nameField });
+export const changePasswordSchema = z
+	.object({
+		currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(PASSWORD_MAX, 'That password is too long.'),
+		newPassword: passwordField,
+		repeatPassword: z.string({ error: 'Type the new password again.' })
+	})
+	.refine((v) => v.newPassword === v.repeatPassword, { message: 'The two new passwords differ. Type them again.', path: ['repeatPassword'] })
+	.refine((v) => v.newPassword !== v.currentPassword, { message: 'Choose a password different from the current one.', path: ['newPassword'] });
+
 export interface Context {
 	/** Site origin for links in mail, e.g. "https://chromaslate.example". */
 	origin: string;
@@ -186,6 +197,44 @@ export async function resetPassword(token: string, password: string): Promise<{ 
 		await createKnexAdapter(trx).deleteUserSessions(String(user.id));
 		return { ok: true as const, email: user.email };
 	});
+}
+
+/** Changes the name the crew sees (headers, member lists, comments, the activity log). */
+export async function changeDisplayName(userId: number, name: string): Promise<User> {
+	const user = await users.update(userId, { name });
+	if (!user) throw new Error(`changeDisplayName: user ${userId} is gone`);
+	return user;
+}
+
+export type PasswordChange = { ok: true } | { ok: false; reason: 'invalid' | 'no-password' } | Limited;
+
+/**
+ * Sets a new password once the current one is given (counted per address and IP, like sign-in), and
+ * ends every session of the account: a browser someone else kept signed in stops working. The
+ * caller signs this browser in again with the new password. An account that signs in only by
+ * e-mail link has no current password: it sets one through a reset link instead.
+ */
+export async function changePassword(user: { id: number; email: string }, current: string, next: string, ctx: Pick<Context, 'ip'>): Promise<PasswordChange> {
+	const address = users.normalizeEmail(user.email);
+	const limit = await countAttempt('password-change', { address, ip: ctx.ip });
+	if (!limit.allowed) return { ok: false, reason: 'limited', retryAfterSeconds: limit.retryAfterSeconds };
+	const found = await users.readWithPassword(address);
+	if (!found || found.id !== user.id) return { ok: false, reason: 'invalid' };
+	if (!found.passwordHash) return { ok: false, reason: 'no-password' };
+	if (!(await verifyPassword(found.passwordHash, current))) return { ok: false, reason: 'invalid' };
+	const passwordHash = await hashPassword(next);
+	await db.transaction(async (trx) => {
+		await users.update(user.id, { passwordHash }, trx);
+		await tokens.destroyUnused(user.id, 'reset-password', trx);
+		await createKnexAdapter(trx).deleteUserSessions(String(user.id));
+	});
+	await forgetAttempts('password-change', address);
+	return { ok: true };
+}
+
+/** Whether the account has a password (some sign in only by e-mail link). */
+export async function hasPassword(email: string): Promise<boolean> {
+	return Boolean((await users.readWithPassword(email))?.passwordHash);
 }
 
 /** Ends every session of a user (all devices). */

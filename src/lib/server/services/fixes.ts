@@ -4,17 +4,13 @@
  * (target, reading, fixture, project overrides) live in the database; the solving is all in
  * $lib/matching.
  */
-import { makeSpectrum, type Spectrum } from '$lib/colour';
 import {
 	GENERIC_FIXTURES,
 	proposeGelsForSourceToTarget,
-	resolveTargetWhite,
 	solveLedFix,
 	solveLedQualityFix,
 	type FixtureProfile,
-	type GelSource,
-	type TargetSpec,
-	type TargetWhite
+	type GelSource
 } from '$lib/matching';
 import { ApiError } from '$lib/server/api';
 import { db } from '$lib/server/db';
@@ -22,66 +18,12 @@ import * as readings from '$lib/server/db/readings';
 import type { Reading } from '$lib/server/db/readings';
 import { parseJson } from '$lib/server/db/json';
 import { solverLibrary } from '$lib/server/services/library';
-
-/** A setup's target white as stored in `setups.target`. */
-export type StoredTarget =
-	| { kind: 'reading'; readingId: number }
-	| { kind: 'cct_duv'; cct_k: number; duv: number }
-	| { kind: 'xy'; x: number; y: number }
-	| { kind: 'uv_prime'; u_prime: number; v_prime: number }
-	| { kind: 'illuminant'; name: string }
-	| { kind: 'average'; readingIds: number[] };
-
-export function readingSpectrum(r: Reading): Spectrum | null {
-	if (r.raw.kind !== 'spectral') return null;
-	const s = r.raw.spectrum;
-	return makeSpectrum(s.start, s.interval, s.values, s.scale);
-}
+import { readingSpectrum, resolveStoredTarget, type StoredTarget } from '$lib/server/services/targets';
 
 /** The reading as a source for the solvers: its spectrum when it has one, else its chromaticity. */
 export function readingAsSource(r: Reading): GelSource {
 	const spectrum = readingSpectrum(r);
 	return spectrum ? { spectrum, label: r.label } : { x: r.computed.x, y: r.computed.y, label: r.label };
-}
-
-/** Resolves a stored target against the project's readings. Throws ApiError when it can't. */
-export async function resolveStoredTarget(projectId: number, stored: StoredTarget, tolerance: number): Promise<TargetWhite> {
-	let spec: TargetSpec;
-	switch (stored.kind) {
-		case 'reading': {
-			const r = await readings.read(projectId, stored.readingId, { includeDeleted: true });
-			if (!r) throw new ApiError(409, 'target_missing', 'The reading this setup targets no longer exists. Choose the target white again.');
-			const spectrum = readingSpectrum(r);
-			spec = spectrum ? { kind: 'reading', label: r.label, spectrum } : { kind: 'reading', label: r.label, x: r.computed.x, y: r.computed.y };
-			break;
-		}
-		case 'cct_duv':
-			spec = { kind: 'cct', CCT: stored.cct_k, Duv: stored.duv };
-			break;
-		case 'xy':
-			spec = { kind: 'xy', x: stored.x, y: stored.y };
-			break;
-		case 'uv_prime':
-			spec = { kind: 'uvPrime', u_prime: stored.u_prime, v_prime: stored.v_prime };
-			break;
-		case 'illuminant':
-			spec = { kind: 'illuminant', name: stored.name as never };
-			break;
-		case 'average': {
-			const list = await Promise.all(stored.readingIds.map((id) => readings.read(projectId, id, { includeDeleted: true })));
-			const found = list.filter((r): r is Reading => r !== null);
-			if (found.length === 0) throw new ApiError(409, 'target_missing', 'None of the readings this target averages exist any more.');
-			spec = { kind: 'average', readings: found.map((r) => ({ x: r.computed.x, y: r.computed.y })), space: 'uvPrime' };
-			break;
-		}
-		default:
-			throw new ApiError(409, 'target_invalid', 'This setup’s target white could not be read. Choose it again.');
-	}
-	try {
-		return resolveTargetWhite(spec, { tolerance });
-	} catch (e) {
-		throw new ApiError(409, 'target_invalid', `This setup’s target white could not be used: ${(e as Error).message}`);
-	}
 }
 
 /** A JSON-safe copy: typed arrays (spectra) are dropped, with a flag that there was one. */

@@ -12,7 +12,7 @@
 import { fail, type ActionFailure } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { displaySwatch } from '$lib/colour';
-import { distance, resolveTargetWhite, type TargetSpec, type TargetWhite } from '$lib/matching/target';
+import { distance, type TargetWhite } from '$lib/matching/target';
 import { gelDefinition } from '$lib/matching/gels/definitions';
 import { POWER_CAUTIONS, loadMessage, powerBudget, type PowerPlan } from '$lib/settools/power';
 import { formatWatts } from '$lib/settools/format';
@@ -39,6 +39,7 @@ import type { Setup, SetupFields } from '$lib/server/db/setups';
 import type { ShootDay, ShootDayFields } from '$lib/server/db/shoot-days';
 import type { Permission, ProjectAccess } from '$lib/server/authz';
 import { createReading, UnusableInputError } from '$lib/server/services/readings';
+import { resolveStoredTarget, TargetError } from '$lib/server/services/targets';
 import { formValues, parseForm } from '$lib/server/auth/form';
 import { sendMail } from '$lib/server/mail/transport';
 import { escapeHtml } from '$lib/server/mail/templates';
@@ -259,7 +260,7 @@ function differences(labels: Record<string, string | undefined>, yours: Record<s
 }
 
 /** Changes as `{ field: [before, after] }`, for the activity log. */
-function changes(labels: Record<string, string | undefined>, before: Record<string, unknown>, after: Record<string, unknown>): Record<string, [string, string]> {
+export function changes(labels: Record<string, string | undefined>, before: Record<string, unknown>, after: Record<string, unknown>): Record<string, [string, string]> {
 	const out: Record<string, [string, string]> = {};
 	for (const [field, label] of Object.entries(labels)) {
 		if (!label || !(field in after)) continue;
@@ -270,12 +271,13 @@ function changes(labels: Record<string, string | undefined>, before: Record<stri
 	return out;
 }
 
-function describeChanges(labels: Record<string, string | undefined>, ch: Record<string, [string, string]>): string {
+export function describeChanges(labels: Record<string, string | undefined>, ch: Record<string, [string, string]>): string {
 	const parts = Object.entries(ch).map(([f, [a, b]]) => (f === 'notes' ? 'notes' : `${(labels[f] ?? f).toLowerCase()} ${a} → ${b}`));
 	return parts.length ? parts.join('; ') : 'no visible change';
 }
 
-async function conflict(what: string, labels: Record<string, string | undefined>, yours: Record<string, unknown>, current: { version: number; updatedBy: number | null; updatedAt: Date } & object): Promise<never> {
+/** Throws the conflict of a save that lost the race: who saved first, when, and both versions field by field. */
+export async function raiseConflict(what: string, labels: Record<string, string | undefined>, yours: Record<string, unknown>, current: { version: number; updatedBy: number | null; updatedAt: Date } & object): Promise<never> {
 	const by = current.updatedBy ? await users.read(current.updatedBy) : null;
 	const details: ConflictDetails = {
 		changedBy: by ? { id: by.id, name: by.name || by.email } : null,
@@ -323,7 +325,7 @@ export async function updateDay(access: ProjectAccess, id: number, patch: Partia
 	return db.transaction(async (trx) => {
 		const r = await shootDays.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such shoot day in this project.');
-		if ('conflict' in r) return conflict('shoot day', DAY_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('shoot day', DAY_LABELS, patch, r.conflict);
 		const ch = changes(DAY_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'shoot_day', subjectId: id, summary: `Changed shoot day ${dayName(r.day)}: ${describeChanges(DAY_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.day;
@@ -399,7 +401,7 @@ export async function updateSetup(access: ProjectAccess, id: number, patch: Part
 	return db.transaction(async (trx) => {
 		const r = await setups.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such setup in this project.');
-		if ('conflict' in r) return conflict('setup', SETUP_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('setup', SETUP_LABELS, patch, r.conflict);
 		const ch = changes(SETUP_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'setup', subjectId: id, summary: `Changed setup “${r.setup.name}”: ${describeChanges(SETUP_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.setup;
@@ -420,7 +422,7 @@ async function saveSetupState(access: ProjectAccess, s: Setup, version: number, 
 	return db.transaction(async (trx) => {
 		const r = await setups.update(access.project.id, s.id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such setup in this project.');
-		if ('conflict' in r) return conflict('setup', { ...SETUP_LABELS, target: 'Target white' } as Record<string, string>, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('setup', { ...SETUP_LABELS, target: 'Target white' } as Record<string, string>, patch, r.conflict);
 		await log(access, { subjectType: 'setup', subjectId: s.id, ...entry }, trx);
 		return r.setup;
 	});
@@ -492,33 +494,22 @@ export function swatchOf(x: number, y: number): string | null {
 	}
 }
 
-/** The stored target resolved to a chromaticity (null when its reading is gone or it cannot be computed). */
-export async function resolveTarget(projectId: number, stored: StoredTarget, tolerance: number, readingLookup?: Map<number, Reading>): Promise<TargetView | null> {
-	let spec: TargetSpec;
-	switch (stored.kind) {
-		case 'reading': {
-			const r = readingLookup?.get(stored.readingId) ?? (await readings.read(projectId, stored.readingId));
-			if (!r) return null;
-			spec = { kind: 'reading', label: `reading “${r.label}”`, x: r.computed.x, y: r.computed.y };
-			break;
-		}
-		case 'cct_duv':
-			spec = { kind: 'cct', CCT: stored.cct_k, Duv: stored.duv };
-			break;
-		case 'xy':
-			spec = { kind: 'xy', x: stored.x, y: stored.y };
-			break;
-		case 'illuminant':
-			spec = { kind: 'illuminant', name: stored.name };
-			break;
-	}
-	let t: TargetWhite;
-	try {
-		t = resolveTargetWhite(spec, { tolerance });
-	} catch {
-		return null;
-	}
+/** The target white as the pages show it. */
+export function targetView(stored: StoredTarget, t: TargetWhite): TargetView {
 	return { stored, label: t.label, x: t.x, y: t.y, u_prime: t.u_prime, v_prime: t.v_prime, CCT: t.CCT, Duv: t.Duv, mired: t.mired, tolerance: t.tolerance, warnings: t.warnings, swatch: swatchOf(t.x, t.y) };
+}
+
+/**
+ * The stored target resolved (through the one resolver the fix solvers use too) for display: null
+ * when its reading was removed or it cannot be computed, which the pages show as a missing target.
+ */
+export async function resolveTarget(projectId: number, stored: StoredTarget, tolerance: number, readingLookup?: Map<number, Reading>): Promise<TargetView | null> {
+	try {
+		return targetView(stored, await resolveStoredTarget(projectId, stored, tolerance, readingLookup));
+	} catch (e) {
+		if (e instanceof TargetError) return null;
+		throw e;
+	}
 }
 
 export interface DistanceView {
@@ -592,7 +583,7 @@ export async function updateLight(access: ProjectAccess, id: number, patch: Part
 	return db.transaction(async (trx) => {
 		const r = await lights.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such light in this project.');
-		if ('conflict' in r) return conflict('light', LIGHT_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('light', LIGHT_LABELS, patch, r.conflict);
 		const ch = changes(LIGHT_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'light', subjectId: id, summary: `Changed light “${r.light.label}”: ${describeChanges(LIGHT_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.light;
@@ -696,7 +687,7 @@ export async function updateCircuit(access: ProjectAccess, id: number, given: Pa
 	return db.transaction(async (trx) => {
 		const r = await circuits.update(access.project.id, id, patch, version, access.user.id, trx);
 		if (!r) throw new LogError('not_found', 'There is no such circuit in this project.');
-		if ('conflict' in r) return conflict('circuit', CIRCUIT_LABELS, patch, r.conflict);
+		if ('conflict' in r) return raiseConflict('circuit', CIRCUIT_LABELS, patch, r.conflict);
 		const ch = changes(CIRCUIT_LABELS, before as unknown as Record<string, unknown>, patch);
 		await log(access, { action: 'update', subjectType: 'circuit', subjectId: id, summary: `Changed circuit “${r.circuit.label}”: ${describeChanges(CIRCUIT_LABELS, ch)}`, details: { changes: ch } }, trx);
 		return r.circuit;

@@ -19,6 +19,7 @@ import sharp, { type Metadata } from 'sharp';
 import { z } from 'zod';
 import { ApiError } from '$lib/server/api';
 import type { ProjectAccess } from '$lib/server/authz';
+import * as activity from '$lib/server/db/activity';
 import * as lights from '$lib/server/db/lights';
 import * as photos from '$lib/server/db/photos';
 import * as setups from '$lib/server/db/setups';
@@ -226,6 +227,45 @@ export async function cleanImage(bytes: Uint8Array, { maxPixels = MAX_PHOTO_PIXE
 	}
 }
 
+/**
+ * A photo coming back from a project backup, before it is written to storage: the original must be
+ * a JPEG, PNG or WebP within the limits (its type is taken from the bytes, never from the file), and
+ * a photo that carries a location is cleaned as on upload. Backups made here hold photos cleaned
+ * already, so their bytes are kept exactly; a missing or unreadable thumbnail is made again.
+ * Throws PhotoRejection otherwise.
+ */
+export async function restoredPhoto(original: Uint8Array, thumbnail: Uint8Array | null): Promise<Omit<CleanedImage, 'hadLocation' | 'format'>> {
+	if (original.byteLength === 0) throw new PhotoRejection(422, 'not_an_image', NOT_AN_IMAGE);
+	if (original.byteLength > MAX_PHOTO_BYTES) throw new PhotoRejection(413, 'too_large', `A photo in the backup is ${megabytes(original.byteLength)}; photos can be up to ${megabytes(MAX_PHOTO_BYTES)}.`);
+	let meta: Metadata;
+	try {
+		meta = await sharp(Buffer.from(original), { limitInputPixels: MAX_PHOTO_PIXELS }).metadata();
+	} catch {
+		throw new PhotoRejection(422, 'not_an_image', NOT_AN_IMAGE);
+	}
+	if ((meta.format !== 'jpeg' && meta.format !== 'png' && meta.format !== 'webp') || !meta.width || !meta.height) {
+		throw new PhotoRejection(415, 'unsupported_type', 'A photo in the backup is not a JPEG, PNG or WebP image.');
+	}
+	if (await hasLocation(original, meta)) {
+		const cleaned = await cleanImage(original);
+		return { original: cleaned.original, thumbnail: cleaned.thumbnail };
+	}
+	const out = meta.format;
+	let thumb: CleanedImage['thumbnail'] | null = null;
+	if (thumbnail?.byteLength) {
+		const t = await sharp(Buffer.from(thumbnail)).metadata().catch(() => null);
+		if (t?.format === 'webp' && t.width && t.height) thumb = { bytes: thumbnail, contentType: 'image/webp', width: t.width, height: t.height };
+	}
+	if (!thumb) {
+		const t = await sharp(Buffer.from(original), { limitInputPixels: MAX_PHOTO_PIXELS }).rotate().resize({ width: THUMBNAIL_WIDTH, withoutEnlargement: true }).webp({ quality: 75 }).toBuffer({ resolveWithObject: true });
+		thumb = { bytes: new Uint8Array(t.data), contentType: 'image/webp', width: t.info.width, height: t.info.height };
+	}
+	return {
+		original: { bytes: original, contentType: `image/${out}`, extension: out === 'jpeg' ? 'jpg' : out, width: meta.width, height: meta.height },
+		thumbnail: thumb
+	};
+}
+
 // --- keys ---------------------------------------------------------------------------------------
 
 export function incomingKey(projectId: number, photoId: number): string {
@@ -235,6 +275,30 @@ export function incomingKey(projectId: number, photoId: number): string {
 export function finalKeys(projectId: number, photoId: number, extension: string): { original: string; thumbnail: string } {
 	const base = `projects/${projectId}/photos/${photoId}`;
 	return { original: `${base}/original.${extension}`, thumbnail: `${base}/thumbnail.webp` };
+}
+
+/** The key prefixes under which a project's objects live (the trailing slash keeps project 1 off project 12). */
+export function projectPrefixes(projectId: number): string[] {
+	return [`projects/${projectId}/`, `incoming/${projectId}/`];
+}
+
+/**
+ * Deletes every stored object of a project: the keys its photo rows named (`knownKeys`, read before
+ * the rows went) and anything else under its prefixes (an upload that never finished, an object a
+ * failed delete left behind). Returns how many objects were asked to go. Without storage set up
+ * there is nothing to delete unless rows named keys, which is then an error.
+ */
+export async function removeProjectObjects(projectId: number, knownKeys: readonly string[] = []): Promise<number> {
+	try {
+		storage.bucket();
+	} catch (e) {
+		if (e instanceof StorageConfigError && knownKeys.length === 0) return 0;
+		throw e;
+	}
+	const listed = (await Promise.all(projectPrefixes(projectId).map((prefix) => storage.list(prefix)))).flat();
+	const keys = [...new Set([...knownKeys, ...listed])];
+	await storage.remove(keys);
+	return keys.length;
 }
 
 // --- API shapes -----------------------------------------------------------------------------------
@@ -383,6 +447,28 @@ async function mustRead(projectId: number, photoId: number): Promise<Photo> {
 	return photo;
 }
 
+/** “photo “wide.jpg” of light “Key” in setup “Wide”” (or of the setup alone), for the activity log. */
+async function photoSubject(photo: Photo): Promise<string> {
+	const name = `photo “${photo.originalName || `#${photo.id}`}”`;
+	const setup = photo.setupId === null ? null : await setups.read(photo.projectId, photo.setupId);
+	const light = photo.lightId === null ? null : await lights.read(photo.projectId, photo.lightId, { includeDeleted: true });
+	if (light) return `${name} of light “${light.label}”${setup ? ` in setup “${setup.name}”` : ''}`;
+	return setup ? `${name} of setup “${setup.name}”` : name;
+}
+
+/** Writes who added or deleted a photo, and of which setup and light, to the project's activity. */
+async function logPhoto(access: ProjectAccess, photo: Photo, action: 'photo.add' | 'photo.delete'): Promise<void> {
+	const what = await photoSubject(photo);
+	await activity.create(access.project.id, {
+		userId: access.user.id,
+		action,
+		subjectType: 'photo',
+		subjectId: photo.id,
+		summary: `${action === 'photo.add' ? 'Added' : 'Deleted'} ${what}${action === 'photo.add' && photo.caption ? `: ${photo.caption}` : ''}`,
+		details: { setupId: photo.setupId, lightId: photo.lightId, caption: photo.caption, originalName: photo.originalName }
+	});
+}
+
 async function reject(photo: Photo, r: PhotoRejection, hadLocation: boolean | null = null): Promise<never> {
 	await photos.markRejected(photo.projectId, photo.id, { code: r.code, reason: r.message, hadLocation });
 	await storage.remove([photo.incomingKey]);
@@ -415,7 +501,7 @@ export async function completeUpload(access: ProjectAccess, photoId: number): Pr
 		const keys = finalKeys(photo.projectId, photo.id, cleaned.original.extension);
 		await storage.write(keys.original, cleaned.original.bytes, { contentType: cleaned.original.contentType });
 		await storage.write(keys.thumbnail, cleaned.thumbnail.bytes, { contentType: cleaned.thumbnail.contentType });
-		await photos.markReady(photo.projectId, photo.id, {
+		const marked = await photos.markReady(photo.projectId, photo.id, {
 			originalKey: keys.original,
 			thumbnailKey: keys.thumbnail,
 			contentType: cleaned.original.contentType,
@@ -427,6 +513,8 @@ export async function completeUpload(access: ProjectAccess, photoId: number): Pr
 			hadLocation: cleaned.hadLocation
 		});
 		await storage.remove([photo.incomingKey]);
+		// Only the call that made it ready logs it (two finishing at once log one upload).
+		if (marked) await logPhoto(access, photo, 'photo.add');
 		return mustRead(photo.projectId, photo.id);
 	} catch (e) {
 		return asApiError(e);
@@ -472,10 +560,14 @@ export async function setCaption(access: ProjectAccess, photoId: number, caption
 	return mustRead(access.project.id, photoId);
 }
 
-/** Deletes the row and its objects. */
+/**
+ * Deletes the row and its objects. Deleting a photo that was ready is logged; an upload that never
+ * finished (pending or refused) was never in the log, so its removal is not either.
+ */
 export async function deletePhoto(access: ProjectAccess, photoId: number): Promise<void> {
 	const photo = await mustRead(access.project.id, photoId);
-	await photos.destroy(photo.projectId, photo.id);
+	const removed = await photos.destroy(photo.projectId, photo.id);
+	if (removed && photo.status === 'ready') await logPhoto(access, photo, 'photo.delete');
 	try {
 		await storage.remove([photo.incomingKey, photo.originalKey, photo.thumbnailKey]);
 	} catch (e) {

@@ -5,8 +5,10 @@
  */
 import { z } from 'zod';
 import { db } from '$lib/server/db';
+import * as activity from '$lib/server/db/activity';
 import * as invitations from '$lib/server/db/invitations';
 import * as members from '$lib/server/db/members';
+import * as photoRows from '$lib/server/db/photos';
 import * as projects from '$lib/server/db/projects';
 import * as users from '$lib/server/db/users';
 import type { Invitation } from '$lib/server/db/invitations';
@@ -17,6 +19,8 @@ import type { SessionUser } from '$lib/server/auth/types';
 import { ROLE_LABELS, ROLES, type ProjectAccess, type Role } from '$lib/server/authz';
 import { sendInvitation } from '$lib/server/mail';
 import { emailField } from './auth';
+import { changes, LogError, raiseConflict } from './log';
+import { removeProjectObjects } from './photos';
 
 export const projectSchema = z.object({
 	name: z
@@ -37,6 +41,16 @@ export const versionSchema = z.object({ version: z.coerce.number().int().positiv
 export const deleteSchema = z.object({ confirmName: z.string().trim().min(1, 'Type the project’s name to confirm.') });
 export const invitationIdSchema = z.object({ invitationId: z.coerce.number().int().positive() });
 
+/** The project settings form: name and notes, with the version the person started from. */
+export const projectSettingsSchema = projectSchema.extend({ version: z.coerce.number({ error: 'Reload the page and try again.' }).int().positive() });
+
+/** The JSON API's `PATCH /api/v1/projects/:id`: the version, and any of name and notes. */
+export const projectPatchSchema = z
+	.object({ version: z.number().int().positive(), name: projectSchema.shape.name.optional(), notes: z.string().trim().max(5000, 'Keep the notes under 5000 characters.').optional() })
+	.strict();
+
+const PROJECT_LABELS = { name: 'Name', notes: 'Notes' } as const;
+
 export function listMyProjects(user: SessionUser): Promise<MemberProject[]> {
 	return projects.listForMember(user.id);
 }
@@ -54,14 +68,76 @@ export type Conflict = { ok: false; reason: 'conflict' };
 
 /** Archives (or, with `archived: false`, restores) the project if nobody changed it since `version`. */
 export async function setArchived(access: ProjectAccess, archived: boolean, version: number): Promise<{ ok: true; project: Project } | Conflict> {
-	const project = await projects.update(access.project.id, version, { archivedAt: archived ? new Date() : null });
+	const project = await projects.update(access.project.id, version, { archivedAt: archived ? new Date() : null, updatedBy: access.user.id });
 	return project ? { ok: true, project } : { ok: false, reason: 'conflict' };
 }
 
-/** Deletes the project and everything in it, once the owner typed its name. */
+/** A project as the JSON API sends it. */
+export function toApiProject(p: Project, role: Role) {
+	return {
+		id: p.id,
+		name: p.name,
+		notes: p.notes,
+		archived: p.archivedAt !== null,
+		archived_at: p.archivedAt,
+		version: p.version,
+		role,
+		created_at: p.createdAt,
+		updated_at: p.updatedAt
+	};
+}
+
+function projectSummary(before: Project, ch: Record<string, [string, string]>): string {
+	const renamed = ch.name ? `Renamed the project “${before.name}” to “${ch.name[1]}”` : null;
+	if (renamed && ch.notes) return `${renamed} and changed its notes`;
+	return renamed ?? 'Changed the project’s notes';
+}
+
+/**
+ * Renames the project and/or changes its notes if nobody changed it since `version`. A stale
+ * version throws `LogError('conflict')` saying who saved first and showing both versions; the change
+ * is written to the activity log with its before and after. Saving what is already stored writes
+ * nothing.
+ */
+export async function updateDetails(access: ProjectAccess, input: { name?: string; notes?: string }, version: number): Promise<Project> {
+	if (!access.can('project.edit')) throw new LogError('forbidden', 'Your role on this project cannot change its name or notes.');
+	const id = access.project.id;
+	const patch: { name?: string; notes?: string } = {};
+	if (input.name !== undefined) patch.name = input.name.trim();
+	if (input.notes !== undefined) patch.notes = input.notes.trim();
+	return db.transaction(async (trx) => {
+		const current = await projects.read(id, trx);
+		if (!current) throw new LogError('not_found', 'There is no such project, or you are not on it.');
+		if (current.version !== version) return raiseConflict('project', PROJECT_LABELS, patch, current);
+		const ch = changes(PROJECT_LABELS, current as unknown as Record<string, unknown>, patch);
+		if (Object.keys(ch).length === 0) return current;
+		const updated = await projects.update(id, version, { ...patch, updatedBy: access.user.id }, trx);
+		if (!updated) {
+			const now = await projects.read(id, trx);
+			if (!now) throw new LogError('not_found', 'There is no such project, or you are not on it.');
+			return raiseConflict('project', PROJECT_LABELS, patch, now);
+		}
+		await activity.create(id, { userId: access.user.id, action: 'project.update', subjectType: 'project', subjectId: id, summary: projectSummary(current, ch), details: { changes: ch } }, trx);
+		return updated;
+	});
+}
+
+/**
+ * Deletes the project and everything in it, once the owner typed its name: the rows (the database
+ * cascades from the project) and then its photos' objects in storage (originals, thumbnails,
+ * unfinished uploads). Once the rows are gone nobody can reach the objects, so a storage failure
+ * is logged rather than undoing the delete.
+ */
 export async function deleteProject(access: ProjectAccess, confirmName: string): Promise<{ ok: true } | { ok: false; reason: 'name' }> {
 	if (confirmName.trim() !== access.project.name.trim()) return { ok: false, reason: 'name' };
-	await projects.destroy(access.project.id);
+	const id = access.project.id;
+	const keys = await photoRows.keysOf(id);
+	await projects.destroy(id);
+	try {
+		await removeProjectObjects(id, keys);
+	} catch (e) {
+		console.warn(`[projects] stored photos of deleted project ${id} were not all removed:`, e);
+	}
 	return { ok: true };
 }
 

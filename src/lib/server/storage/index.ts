@@ -16,6 +16,7 @@ import {
 	DeleteObjectCommand,
 	GetObjectCommand,
 	HeadObjectCommand,
+	ListObjectsV2Command,
 	NotFound,
 	NoSuchKey,
 	PutObjectCommand,
@@ -161,12 +162,28 @@ export async function write(key: string, body: Uint8Array, o: { contentType: str
 }
 
 /**
- * Deletes objects; keys that do not exist are fine. One request per key: a photo has at most three
- * objects, and single deletes need no checksum header, which some S3-compatible services lack.
+ * Deletes objects; keys that do not exist are fine. One request per key (a few at a time): a photo
+ * has at most three objects, and single deletes need no checksum header, which some S3-compatible
+ * services lack.
  */
 export async function remove(keys: (string | null | undefined)[]): Promise<void> {
 	const wanted = [...new Set(keys.filter((k): k is string => Boolean(k)))];
 	if (!wanted.length) return;
 	const { server, config } = get();
-	await Promise.all(wanted.map((Key) => server.send(new DeleteObjectCommand({ Bucket: config.bucket, Key }))));
+	for (let i = 0; i < wanted.length; i += 8) {
+		await Promise.all(wanted.slice(i, i + 8).map((Key) => server.send(new DeleteObjectCommand({ Bucket: config.bucket, Key }))));
+	}
+}
+
+/** Every key that starts with `prefix` (all pages of the listing). */
+export async function list(prefix: string): Promise<string[]> {
+	const { server, config } = get();
+	const keys: string[] = [];
+	let token: string | undefined;
+	do {
+		const r = await server.send(new ListObjectsV2Command({ Bucket: config.bucket, Prefix: prefix, ContinuationToken: token }));
+		for (const o of r.Contents ?? []) if (o.Key) keys.push(o.Key);
+		token = r.IsTruncated ? r.NextContinuationToken : undefined;
+	} while (token);
+	return keys;
 }

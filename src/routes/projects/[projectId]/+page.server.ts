@@ -8,7 +8,10 @@ export const load: PageServerLoad = async (event) => {
 	const access = await projectAccess(event);
 	const members = await listMembers(access);
 	const { project } = access;
+	const q = event.url.searchParams;
+	const count = (k: string) => (/^\d{1,4}$/.test(q.get(k) ?? '') ? Number(q.get(k)) : null);
 	return {
+		restored: q.has('restored') ? { added: count('added'), invited: count('invited'), mailFailed: count('mailFailed') } : null,
 		project: { id: project.id, name: project.name, notes: project.notes, archived: project.archivedAt !== null, version: project.version },
 		role: access.role,
 		roleLabel: ROLE_LABELS[access.role],

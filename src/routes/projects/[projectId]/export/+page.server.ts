@@ -1,7 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { projectAccess } from '$lib/server/authz';
 import { LogError } from '$lib/server/services/log';
-import { parseBackup, restoreProject } from '$lib/server/services/backup';
+import { requestContext } from '$lib/server/auth/form';
+import { parseBackup, restoreProject, type RestoreResult } from '$lib/server/services/backup';
 import { LOG_CSV_COLUMNS } from '$lib/server/services/export';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -15,20 +16,23 @@ export const load: PageServerLoad = async (event) => {
 };
 
 export const actions: Actions = {
-	/** Restores a backup file as a new project owned by the person restoring it. */
+	/** Restores a backup file as a new project owned by the person restoring it, with its crew if asked. */
 	restore: async (event) => {
 		const access = await projectAccess(event, 'project.view');
 		const form = await event.request.formData();
 		const file = form.get('backup');
 		const name = String(form.get('name') ?? '').trim().slice(0, 160);
-		if (!(file instanceof File) || file.size === 0) return fail(400, { action: 'restore', message: 'Choose a backup file (.json) first.', values: { name } });
-		let id: number;
+		const keepMembers = form.get('keepMembers') === 'on';
+		const values = { name, keepMembers: keepMembers ? 'on' : '' };
+		if (!(file instanceof File) || file.size === 0) return fail(400, { action: 'restore', message: 'Choose a backup file (.json) first.', values });
+		let restored: RestoreResult;
 		try {
-			id = await restoreProject(access.user, parseBackup(await file.text()), { name });
+			restored = await restoreProject(access.user, parseBackup(await file.text()), { name, keepMembers, origin: requestContext(event).origin });
 		} catch (e) {
-			if (e instanceof LogError) return fail(400, { action: 'restore', message: e.message, values: { name } });
+			if (e instanceof LogError) return fail(400, { action: 'restore', message: e.message, values });
 			throw e;
 		}
-		redirect(303, `/projects/${id}`);
+		const counts: Record<string, string> = keepMembers ? { added: String(restored.added.length), invited: String(restored.invited.length), mailFailed: String(restored.mailFailed.length) } : {};
+		redirect(303, `/projects/${restored.projectId}?${new URLSearchParams({ restored: '1', ...counts })}`);
 	}
 };
