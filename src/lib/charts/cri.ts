@@ -120,9 +120,11 @@ export function criLayout(cri: { ra: number; r: readonly number[] }, width: numb
 	});
 	const bottom = top + values.length * row + gap;
 	const [d0] = x.domain();
-	const ticks: number[] = [];
+	// Ticks: the lower end (so a negative bar always has a number under it), zero, and every `step`
+	// up to 100, leaving out any too close to the lower end to be read apart.
 	const step = plotRight - plotLeft < 240 ? 50 : 20;
-	for (let v = Math.ceil(d0 / step) * step; v <= 100; v += step) ticks.push(v);
+	const ticks: number[] = [d0];
+	for (let v = Math.ceil(d0 / step) * step; v <= 100; v += step) if (v !== d0 && (v === 0 || v - d0 >= step * 0.6)) ticks.push(v);
 	return {
 		width: w,
 		height: bottom + 26,

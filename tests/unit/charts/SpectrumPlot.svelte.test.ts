@@ -68,7 +68,7 @@ describe('SpectrumPlot', () => {
 		const m: PlotSeries = { id: 'm', label: 'Measured', role: 'reading', spectrum: { ...plain(abs), scale: 'absolute', values: Array.from(abs.values, (v) => v * 0.002) } };
 		render(SpectrumPlot, { title: 'abs', series: [m, D65], scale: 'peak' });
 		expect(screen.getByTestId('spectrum-plot')).toHaveAttribute('data-scale', 'peak');
-		await fireEvent.click(screen.getByTestId('spectrum-plot-scale-absolute'));
+		await fireEvent.change(screen.getByTestId('spectrum-plot-scale'), { target: { value: 'absolute' } });
 		expect(screen.getByTestId('spectrum-plot')).toHaveAttribute('data-scale', 'absolute');
 		expect(screen.getByTestId('spectrum-plot-axes')).toHaveTextContent('W/m²/nm');
 		expect(screen.getByTestId('spectrum-plot-key')).toHaveTextContent('scaled to the illuminance of Measured');
@@ -82,7 +82,8 @@ describe('SpectrumPlot', () => {
 
 	it('without an absolute reading there is no absolute scale to pick', () => {
 		render(SpectrumPlot, { title: 'rel', series: [A] });
-		expect(screen.queryByTestId('spectrum-plot-scale-absolute')).toBeNull();
+		const options = [...(screen.getByTestId('spectrum-plot-scale') as HTMLSelectElement).options].map((o) => o.value);
+		expect(options).toEqual(['peak', 'luminance', 'at560']);
 	});
 
 	it('transmissions go on a second axis, 0–100 %: 50 % at 550 nm sits on the 50 % line', () => {
@@ -101,7 +102,7 @@ describe('SpectrumPlot', () => {
 		const user = userEvent.setup();
 		render(SpectrumPlot, { title: 'kb', series: [A, D65], scale: 'at560' });
 		const slider = screen.getByRole('slider');
-		// Reachable by Tab alone (after the scale choice and the table button).
+		// Reachable by Tab alone (after the scale and the table button).
 		for (let i = 0; i < 8 && document.activeElement !== slider; i++) await user.tab();
 		expect(slider).toHaveFocus();
 		await user.keyboard('{Home}');

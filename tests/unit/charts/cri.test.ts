@@ -61,3 +61,15 @@ describe('criLayout', () => {
 		expect(fmtIndex(-0.2)).toBe('0');
 	});
 });
+
+describe('criLayout ticks', () => {
+	it('always number the lower end and zero, so a negative bar can be read on a phone', () => {
+		const phone = criLayout({ ra: 71, r: [66, 78, 86, 67, 66, 68, 83, 53, -28, 48, 58, 49, 68, 92, 60] }, 328);
+		expect(phone.ticks[0]).toBe(-40);
+		expect(phone.ticks).toContain(0);
+		expect(phone.ticks).toContain(100);
+		const wide = criLayout({ ra: 71, r: [66, 78, 86, 67, 66, 68, 83, 53, -28, 48, 58, 49, 68, 92, 60] }, 900);
+		expect(wide.ticks).toEqual([-40, -20, 0, 20, 40, 60, 80, 100]);
+		expect(criLayout(flat(90), 328).ticks).toEqual([0, 50, 100]);
+	});
+});
