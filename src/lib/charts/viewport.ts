@@ -146,3 +146,24 @@ export function round(v: number, decimals = 2): number {
 	const f = 10 ** decimals;
 	return Math.round(v * f) / f;
 }
+
+/**
+ * The y axis as the chart frame labels it: ticks, their format, and whether the labels go inside the
+ * plot because they are wider than the left margin (narrow screens, fine ticks). `px` is viewBox
+ * units per CSS pixel; labels are 11 px, about 0.58 em per digit.
+ */
+export function yAxisLabels(s: PlaneScales, plot: Plot, px: number): { ticks: number[]; format: (v: number) => string; inside: boolean } {
+	const inner = innerSize(plot);
+	const count = Math.max(2, Math.min(10, Math.floor(inner.height / (11 * px * 3))));
+	const ticks = s.y.ticks(count);
+	const format = s.y.tickFormat(count);
+	const inside = Math.max(0, ...ticks.map((t) => format(t).length)) * 11 * px * 0.58 > plot.margin.left - 6 * px;
+	return { ticks, format, inside };
+}
+
+/** Where the frame draws y labels inside the plot (baseline, start-anchored), for other labels to keep clear of. */
+export function insideYLabels(s: PlaneScales, plot: Plot, px: number): Array<{ x: number; y: number; text: string }> {
+	const y = yAxisLabels(s, plot, px);
+	if (!y.inside) return [];
+	return y.ticks.filter((t) => s.y(t) > plot.margin.top + 24 * px).map((t) => ({ x: plot.margin.left + 4 * px, y: round(s.y(t) + 4 * px), text: y.format(t) }));
+}

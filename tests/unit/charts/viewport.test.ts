@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { clampDomain, domainAround, panBy, planeScales, zoomAt, zoomLevel, type Domain, type Plot } from '$lib/charts/viewport';
+import { clampDomain, domainAround, insideYLabels, panBy, planeScales, yAxisLabels, zoomAt, zoomLevel, type Domain, type Plot } from '$lib/charts/viewport';
 
 const plot = (w = 500, h = 400): Plot => ({ width: w + 20, height: h + 20, margin: { top: 10, right: 10, bottom: 10, left: 10 } });
 const full: Domain = { x0: 0, x1: 1, y0: 0, y1: 0.8 };
@@ -73,5 +73,25 @@ describe('domainAround', () => {
 		expect(d.y1 - d.y0).toBeCloseTo(0.04, 12);
 		const s = planeScales(d, plot(500, 400));
 		expect((s.x(d.x1) - s.x(d.x0)) / (d.x1 - d.x0)).toBeCloseTo((s.y(d.y0) - s.y(d.y1)) / (d.y1 - d.y0), 6);
+	});
+});
+
+describe('y axis labels inside the plot', () => {
+	const xyPlot = { width: 540, height: 592, margin: { top: 12, right: 12, bottom: 40, left: 48 } };
+	const s = planeScales({ x0: 0.33, x1: 0.41, y0: 0.33, y1: 0.42 }, xyPlot);
+	it('stay in the margin on a wide screen and go inside on a phone, where other labels must avoid them', () => {
+		// 1 viewBox unit per CSS px: "0.35" is 4 × 11 × 0.58 ≈ 25.5 units, inside a 48-unit margin.
+		expect(yAxisLabels(s, xyPlot, 1).inside).toBe(false);
+		expect(insideYLabels(s, xyPlot, 1)).toEqual([]);
+		// 540 units drawn 318 px wide (a 360 px phone): 1.7 units per px, and the labels no longer fit.
+		const px = 540 / 318;
+		expect(yAxisLabels(s, xyPlot, px).inside).toBe(true);
+		const labels = insideYLabels(s, xyPlot, px);
+		expect(labels.length).toBeGreaterThan(2);
+		for (const l of labels) {
+			expect(l.x).toBeCloseTo(48 + 4 * px, 6);
+			expect(l.y).toBeGreaterThan(12 + 24 * px);
+		}
+		expect(labels.map((l) => l.text)).toContain('0.35');
 	});
 });
