@@ -21,7 +21,7 @@ import * as lights from '$lib/server/db/lights';
 import * as readings from '$lib/server/db/readings';
 import * as setups from '$lib/server/db/setups';
 import type { Reading } from '$lib/server/db/readings';
-import { readingSpectrum, resolveStoredTarget } from '$lib/server/services/fixes';
+import { readingSpectrum, resolveStoredTarget } from '$lib/server/services/targets';
 import { solverLibrary } from '$lib/server/services/library';
 import type { TargetWhite } from '$lib/matching';
 
