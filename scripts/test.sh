@@ -70,6 +70,13 @@ if want e2e; then
 	step "Browser tests (Playwright on /usr/bin/chromium)"
 	EXPECTED+=(playwright.json)
 	if build_app --logLevel warn; then
+		# The browser tests start from the demo as `npm start` seeds it, not from whatever the
+		# integration tests left (shared library uploads, extra projects): empty the database first.
+		if want integration; then
+			knex_cli() { node --import tsx node_modules/knex/bin/cli.js --knexfile knexfile.ts "$@" >/dev/null; }
+			knex_cli migrate:rollback --all && knex_cli migrate:latest \
+				|| echo '{"suite":"migrate","passed":0,"failed":1}' > "$RESULTS/migrate.json"
+		fi
 		if [ -f scripts/seed.ts ]; then
 			node --import tsx scripts/seed.ts >/dev/null || echo '{"suite":"seed","passed":0,"failed":1}' > "$RESULTS/seed.json"
 		fi

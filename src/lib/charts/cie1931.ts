@@ -12,16 +12,15 @@
  *     in u′v′. Mapped to xy it becomes a closed curve close to an ellipse (the projective map from
  *     u′v′ to xy is smooth, not affine), tilted and stretched along the green direction. We sample
  *     the u′v′ circle and map each point, so the curve is exact at the samples.
- *   - The nominal-CCT quadrangles of ANSI C78.377 are not drawn: their corner values are not in
- *     our checked references. We draw instead the band Duv = ±0.006 around the Planckian locus,
- *     the Duv tolerance that standard uses for its nominal CCTs (common practice), labelled as a band.
+ *   - Besides the band Duv = ±0.006 around the Planckian locus (the Duv tolerance ANSI C78.377 uses
+ *     for its nominal CCTs), the chart can draw that standard's quadrangles themselves (`ansi.ts`).
  *
  * References:
  *   CIE 15:2004 Colorimetry, 3rd ed.: §7 (chromaticity coordinates x, y), §8.1 (CIE 1976 UCS u′v′),
  *     §9.5 (correlated colour temperature on the CIE 1960 UCS; isotemperature lines are normal to
  *     the Planckian locus in uv), §3.1 eq. 3.3 (daylight locus, computed by the colour core).
  *   ANSI C78.377-2017 Specifications for the Chromaticity of Solid-State Lighting Products
- *     (Duv tolerance ±0.006 around the nominal CCTs; the quadrangles themselves are not reproduced).
+ *     (Duv tolerance ±0.006 around the nominal CCTs; the quadrangles are in `ansi.ts`).
  *   Mired: M = 10⁶ / T with T in kelvin (common practice).
  */
 import { line, symbol, symbolCircle, symbolCross, symbolDiamond, symbolSquare, symbolStar, symbolTriangle, symbolWye } from 'd3-shape';

@@ -137,4 +137,15 @@ describe('ChromaticityChart', () => {
 		await user.click(screen.getByLabelText('CIE daylight locus'));
 		expect(screen.queryByTestId('xy-chart-daylight-locus')).toBeNull();
 	});
+
+	it('draws the eight ANSI C78.377 quadrangles (2700–6500 K) when asked, with a key entry', async () => {
+		const user = userEvent.setup();
+		render(ChromaticityChart, { readings: [] });
+		expect(screen.queryByTestId('xy-chart-quadrangles')).toBeNull();
+		await user.click(screen.getByLabelText('ANSI C78.377 quadrangles'));
+		const group = screen.getByTestId('xy-chart-quadrangles');
+		const nominals = [...group.querySelectorAll('path')].map((p) => Number(p.getAttribute('data-nominal')));
+		expect(nominals).toEqual([2700, 3000, 3500, 4000, 4500, 5000, 5700, 6500]);
+		expect(screen.getByRole('list', { name: 'Key' })).toHaveTextContent('ANSI C78.377 nominal-CCT quadrangles');
+	});
 });
