@@ -130,3 +130,25 @@ export function arrowLabelCandidates(a: Pick<ArrowLabelInput, 'from' | 'to'>, te
 	}
 	return out;
 }
+
+/**
+ * Labels for the arrows that want one (`need`), each numbered by its place in the whole list (the
+ * chart's key uses the same numbers): `placeArrowLabels` over those, null for the rest.
+ */
+export function placeNumberedArrowLabels(
+	arrows: ReadonlyArray<Omit<ArrowLabelInput, 'short'> & { need: boolean }>,
+	font: number,
+	obstacles: readonly Box[] = [],
+	bounds?: Box
+): Array<PlacedArrowLabel | null> {
+	const list = arrows.map((a, i) => ({ a, i })).filter((x) => x.a.need);
+	const placed = placeArrowLabels(
+		list.map(({ a, i }) => ({ from: a.from, to: a.to, text: a.text, short: String(i + 1) })),
+		font,
+		obstacles,
+		bounds
+	);
+	const out: Array<PlacedArrowLabel | null> = arrows.map(() => null);
+	list.forEach(({ i }, k) => (out[i] = placed[k]));
+	return out;
+}
