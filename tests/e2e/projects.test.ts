@@ -4,12 +4,13 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD, type DemoKey } from '../../scripts/seed/a
 import { DEMO_PROJECT_NAME } from '../../scripts/seed/project';
 import { linkIn, waitForMail } from '../integration/auth/helpers/mail';
 import { uniqueEmail } from '../integration/auth/helpers/factories';
+import { gotoReady } from './helpers/session';
 
 const demo = (key: DemoKey) => DEMO_ACCOUNTS.find((a) => a.key === key)!;
 const shots = (name: string) => join(process.env.TEST_RESULTS_DIR ?? '.data/test-results', 'screens', name);
 
 async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
-	await page.goto('/sign-in');
+	await gotoReady(page, '/sign-in');
 	await page.getByLabel('E-mail', { exact: true }).fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Sign in', exact: true }).click();
@@ -64,8 +65,9 @@ test('the projects list shows only your projects, and a project you are not on d
 	await expect(page.getByTestId('your-role')).toHaveText('Owner');
 	const url = page.url();
 
-	await page.goto('/sign-out');
+	await gotoReady(page, '/sign-out');
 	await page.locator('#main').getByRole('button', { name: 'Sign out' }).click();
+	await expect(page).toHaveURL(/\/sign-in\?signedOut=1/);
 	await signIn(page, demo('gaffer').email);
 	await expect(page.getByTestId('project-list')).toContainText(DEMO_PROJECT_NAME);
 	await expect(page.getByTestId('project-list')).not.toContainText(name);

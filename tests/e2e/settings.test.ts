@@ -159,6 +159,7 @@ test('account settings: change the display name and the password, see your proje
 
 	// Signed out, the page sends you to sign in; the new password is the one that works.
 	await page.getByTestId('header-account').getByRole('button', { name: 'Sign out' }).click();
+	await expect(page).toHaveURL(/\/sign-in\?signedOut=1/);
 	await page.goto('/account');
 	await expect(page).toHaveURL(/\/sign-in\?redirectTo=%2Faccount$/);
 	await page.getByLabel('E-mail', { exact: true }).fill(email);
