@@ -4,7 +4,7 @@
  * 360 px and 1440 px go to the test results for a look.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { openDemoProject, screenshot, signIn } from './helpers/session';
+import { gotoReady, openDemoProject, screenshot, signIn } from './helpers/session';
 
 const LABEL = `Counter practical ${Date.now().toString(36)}`;
 
@@ -117,6 +117,15 @@ test('the colorist exports: CSV download with the documented header, and a repor
 	expect(text.split('\r\n')[0].split(',')[0]).toBe(firstColumn);
 	expect(text).toContain('Streetlight through the window');
 	await screenshot(page, 'log-export', 360);
+
+	// The colorist sends the log to the DP with a note; the DP's mail has the review link.
+	await gotoReady(page, `${project}/export`);
+	const share = page.getByTestId('share-log');
+	const dp = share.getByLabel('Send to').locator('option', { hasText: 'director of photography' });
+	await share.getByLabel('Send to').selectOption((await dp.getAttribute('value'))!);
+	await share.getByLabel('Note (optional)').fill('Night 1 graded; have a look at the sign.');
+	await share.getByRole('button', { name: 'Send the link' }).click();
+	await expect(share.getByTestId('form-alert')).toContainText(/Sent to /);
 	await page.goto(`${project}/export/report`);
 	await expect(page.getByTestId('report')).toContainText('Wide: the row of machines');
 	await page.emulateMedia({ media: 'print' });

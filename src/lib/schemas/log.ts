@@ -421,5 +421,11 @@ export const activityQuerySchema = z.object({
 	page: pageQuery.page
 });
 
+/** Sending the lighting log to a member: who, and a note for them. */
+export const shareLogFormSchema = z.object({
+	userId: id('person on the project'),
+	note: optionalText(1000, 'the note')
+});
+
 export const idFormSchema = (key: string) => z.object({ [key]: id(key.replace(/Id$/, '')) });
 export const versionFormSchema = z.object({ version: versionField });

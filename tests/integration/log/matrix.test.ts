@@ -146,6 +146,7 @@ const cases: Case[] = [
 	{ name: 'light ?/deleteComment', allowed: REVIEW, kind: 'page', run: async (u) => act(lightPage.actions as never, 'deleteComment', '/l', { params: await lightP(p.lightId), user: u, form: { commentId: await freshComment(u?.id ?? crew.owner.id, 'light', p.lightId) } }) },
 	{ name: 'review ?/comment', allowed: REVIEW, kind: 'page', run: (u) => act(reviewPage.actions as never, 'comment', '/r', { params: { projectId: pid }, user: u, form: { subjectType: 'setup', subjectId: p.setupId, body: 'Note' } }) },
 	{ name: 'review ?/deleteComment', allowed: REVIEW, kind: 'page', run: async (u) => act(reviewPage.actions as never, 'deleteComment', '/r', { params: { projectId: pid }, user: u, form: { commentId: await freshComment(u?.id ?? crew.owner.id) } }) },
+	{ name: 'export ?/share', allowed: REVIEW, kind: 'page', run: (u) => act(exportPage.actions as never, 'share', '/e', { params: { projectId: pid }, user: u, form: { userId: u?.id === crew.viewer.id ? crew.owner.id : crew.viewer.id, note: 'Matrix' } }) },
 	{ name: 'export ?/restore', allowed: ALL, kind: 'page', run: (u) => act(exportPage.actions as never, 'restore', '/e', { params: { projectId: pid }, user: u, form: { backup: backupFile(), name: '' } }) },
 
 	// JSON API

@@ -1,6 +1,9 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { projectAccess } from '$lib/server/authz';
+import * as log from '$lib/server/services/log';
 import { LogError } from '$lib/server/services/log';
+import { shareLog, shareRecipients } from '$lib/server/services/share';
+import { shareLogFormSchema } from '$lib/schemas/log';
 import { requestContext } from '$lib/server/auth/form';
 import { parseBackup, restoreProject, type RestoreResult } from '$lib/server/services/backup';
 import { LOG_CSV_COLUMNS } from '$lib/server/services/export';
@@ -11,11 +14,20 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		project: { id: access.project.id, name: access.project.name },
 		canExport: access.can('export.create'),
+		recipients: access.can('export.create') ? await shareRecipients(access) : [],
 		columns: LOG_CSV_COLUMNS.map((c) => ({ name: c.name, description: c.description }))
 	};
 };
 
 export const actions: Actions = {
+	/** Mails the review link to someone on the project, with a note. */
+	share: async (event) => {
+		const access = await projectAccess(event, 'export.create');
+		return log.formAction(event.request, 'share', shareLogFormSchema, async (d) => {
+			const { name } = await shareLog(access, d, requestContext(event).origin);
+			return { message: `Sent to ${name}.` };
+		});
+	},
 	/** Restores a backup file as a new project owned by the person restoring it, with its crew if asked. */
 	restore: async (event) => {
 		const access = await projectAccess(event, 'project.view');
