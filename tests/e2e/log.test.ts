@@ -4,7 +4,7 @@
  * 360 px and 1440 px go to the test results for a look.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { gotoReady, openDemoProject, screenshot, signIn } from './helpers/session';
+import { gotoReady, hydrated, openDemoProject, screenshot, signIn } from './helpers/session';
 
 const LABEL = `Counter practical ${Date.now().toString(36)}`;
 
@@ -68,9 +68,11 @@ test('the gaffer adds a light and a reading; the colorist comments on it in revi
 	const desk = await browser.newContext();
 	const colorist = await desk.newPage();
 	await signIn(colorist, 'colorist');
-	await colorist.goto(`${project}/review`);
+	await gotoReady(colorist, `${project}/review`);
 	await colorist.getByLabel('Setup', { exact: true }).selectOption({ label: 'Close: at the counter' });
 	await colorist.getByRole('button', { name: 'Show' }).click();
+	await expect(colorist).toHaveURL(/[?&]setup=\d+/);
+	await hydrated(colorist);
 	const card = colorist.getByTestId('review-light').filter({ hasText: LABEL });
 	await expect(card).toContainText('2,750');
 	await expect(card).toContainText('(final)');

@@ -10,6 +10,11 @@ export const demoEmail = (role: 'owner' | 'dp' | 'gaffer' | 'colorist' | 'viewer
  */
 export async function gotoReady(page: Page, url: string): Promise<void> {
 	await page.goto(url);
+	await hydrated(page);
+}
+
+/** Waits until the page in view has hydrated (after a click that may have loaded a new document). */
+export async function hydrated(page: Page): Promise<void> {
 	await page.locator('html[data-hydrated="true"]').waitFor({ state: 'attached' });
 }
 
