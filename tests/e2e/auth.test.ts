@@ -166,3 +166,23 @@ test('captured mail can be read on /dev/mail when the local catcher runs', async
 	await expect(page.getByTestId('mail-subject')).toHaveText('Your Chromaslate sign-in link');
 	await expect(page.getByTestId('mail-link').first()).toContainText('/sign-in/link?');
 });
+
+test('what someone types before the page has finished loading (a slow phone on set) is kept when the app takes over', async ({ page }) => {
+	// Hold back the app's scripts until the e-mail has been typed into the server-rendered form.
+	let release!: () => void;
+	const typed = new Promise<void>((r) => (release = r));
+	await page.route('**/_app/immutable/**', async (route) => {
+		await typed;
+		await route.continue();
+	});
+	await page.goto('/sign-in', { waitUntil: 'commit' });
+	const email = page.locator('form[action="?/password"] input[name="email"]');
+	await email.fill(gaffer.email);
+	await expect(page.locator('html[data-hydrated="true"]')).toHaveCount(0);
+	release();
+	await page.locator('html[data-hydrated="true"]').waitFor({ state: 'attached' });
+	await expect(email).toHaveValue(gaffer.email);
+	await page.locator('form[action="?/password"] input[name="password"]').fill(DEMO_PASSWORD);
+	await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+	await expect(page).toHaveURL(/\/projects/);
+});
