@@ -55,9 +55,16 @@ test('a gaffer types a reading on a phone; a bad value is refused and the form k
 	await page.getByRole('textbox', { name: 'Duv' }).fill('0,0031');
 	await page.getByRole('button', { name: 'Save reading' }).click();
 	await page.waitForURL(/readings\?added=1/);
-	await expect(page.getByTestId('readings-table')).toContainText('Practical lamp by the dryer');
+	// On a phone the readings are cards (the wide table is for larger screens), and nothing runs off
+	// the side of the screen.
+	const list = page.getByTestId('readings-list');
+	await expect(list).toBeVisible();
+	await expect(page.getByTestId('readings-table')).toBeHidden();
+	await expect(list).toContainText('Practical lamp by the dryer');
 	// The stored reading was computed on the server from what was typed (3150 K in, 3150 K back).
-	await expect(page.getByTestId('readings-table')).toContainText('3150');
+	await expect(list).toContainText('3150');
+	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360);
+	await screenshot(page, 'readings-list', 360);
 });
 
 test('a colorist can read the readings but is not offered upload or typing', async ({ page }) => {

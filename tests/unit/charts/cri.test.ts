@@ -31,7 +31,7 @@ describe('criLayout', () => {
 		expect(l.zeroX).toBeGreaterThan(l.plotLeft);
 	});
 
-	it('guides at the rules of thumb (85 and 90) sit at their values', () => {
+	it('common practice: guides at the rules of thumb (85 and 90) sit at their values', () => {
 		const l = criLayout(flat(80), 640);
 		expect(CRI_GUIDES).toEqual([85, 90]);
 		expect(l.guides.map((g) => g.value)).toEqual([85, 90]);
