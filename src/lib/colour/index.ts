@@ -57,6 +57,6 @@ export {
 	spectralLocusXy,
 	type CieIlluminantName
 } from './illuminants';
-export { colourRenderingIndex, spectralSimilarityIndex, CRI_DC_LIMIT, CRI_DAYLIGHT_FROM_K, type CRIResult } from './quality';
+export { colourRenderingIndex, criReferenceSpectrum, spectralSimilarityIndex, CRI_DC_LIMIT, CRI_DAYLIGHT_FROM_K, type CRIResult } from './quality';
 export { displaySwatch, type DisplaySwatch } from './display';
 export { analyzeSpectrum, analyzeChromaticity, COMPUTATION_VERSION, type ReadingAnalysis, type ChromaticityInput } from './analysis';

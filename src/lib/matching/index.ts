@@ -40,6 +40,7 @@ export {
 	type ValueRange
 } from './gels/definitions';
 export { conversionTransmission, bandTransmission, neutralTransmission, conversionTargetK, FILTER_GRID } from './gels/transmission';
+export { stackTransmission } from './gels/stack';
 export {
 	gelLibrary,
 	getGel,

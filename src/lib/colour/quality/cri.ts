@@ -33,7 +33,8 @@
 import { DAYLIGHT_S0, DAYLIGHT_S1, DAYLIGHT_S2 } from '../data/daylight';
 import { TEST_COLOUR_SAMPLES } from '../data/tcs';
 import { linearInterpolate, spragueInterpolate } from '../interpolation';
-import { daylightM, daylightXyUnchecked, DAYLIGHT_T_MAX } from '../illuminants/daylight';
+import { daylightM, daylightSpectrum, daylightXyUnchecked, DAYLIGHT_T_MAX } from '../illuminants/daylight';
+import { planckianSpectrum } from '../illuminants/planckian';
 import { C2_NM_K } from '../temperature/planckian-locus';
 import { gridWeights, spectrumForSummation } from '../tristimulus';
 import { xyToUv1960 } from '../chromaticity';
@@ -56,6 +57,18 @@ export interface CRIResult {
 
 export const CRI_DC_LIMIT = 5.4e-3;
 export const CRI_DAYLIGHT_FROM_K = 5000;
+
+/**
+ * The reference illuminant CIE 13.3 §5.3 compares a light of this CCT (K) with, as a spectrum: a
+ * Planckian radiator below 5000 K, CIE daylight from 5000 K up to 25 000 K (where the daylight
+ * series ends); null for any other CCT. For drawing beside a reading (380–780 nm at 5 nm unless asked).
+ */
+export function criReferenceSpectrum(CCT: number, start = 380, end = 780, interval = 5): { spectrum: Spectrum; kind: 'Planckian' | 'CIE daylight' } | null {
+	if (!Number.isFinite(CCT) || CCT <= 0 || CCT > DAYLIGHT_T_MAX) return null;
+	return CCT < CRI_DAYLIGHT_FROM_K
+		? { spectrum: planckianSpectrum(CCT, start, end, interval), kind: 'Planckian' }
+		: { spectrum: daylightSpectrum(CCT, start, end, interval), kind: 'CIE daylight' };
+}
 const CRI_RANGE: readonly [number, number] = [380, 780];
 const NS = TEST_COLOUR_SAMPLES.length;
 

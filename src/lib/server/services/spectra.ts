@@ -13,8 +13,8 @@
  *   CIE 13.3-1995 §5.3 (reference illuminant: Planckian below 5000 K, CIE daylight from 5000 K).
  *   CIE 15:2004 Colorimetry, 3rd ed., §3.1 (Planck's law; CIE daylight from S0, S1, S2).
  */
-import { CRI_DAYLIGHT_FROM_K, daylightSpectrum, multiplySpectra, planckianSpectrum, valueAt, type ReadingAnalysis, type Spectrum } from '$lib/colour';
-import { gelLibrary, type Gel } from '$lib/matching';
+import { criReferenceSpectrum, multiplySpectra, type ReadingAnalysis, type Spectrum } from '$lib/colour';
+import { gelLibrary, stackTransmission, type Gel } from '$lib/matching';
 import { ApiError } from '$lib/server/api';
 import type { ProjectAccess } from '$lib/server/authz';
 import * as lights from '$lib/server/db/lights';
@@ -48,8 +48,6 @@ export interface TransmissionLine {
 	transmission: { start: number; interval: number; values: number[] };
 }
 
-/** Largest CCT with a reference (CIE daylight is defined up to 25 000 K). */
-export const REFERENCE_MAX_K = 25000;
 /** The grid references are drawn on: 380–780 nm at 5 nm (the daylight components' own step). */
 const REFERENCE_GRID = { start: 380, end: 780, interval: 5 } as const;
 
@@ -64,11 +62,11 @@ export function toJson(s: Spectrum): SpectrumJson {
  * null where there is none (not a positive CCT, or above 25 000 K).
  */
 export function referenceAt(CCT: number | null | undefined): { spectrum: Spectrum; label: string } | null {
-	if (CCT == null || !Number.isFinite(CCT) || CCT <= 0 || CCT > REFERENCE_MAX_K) return null;
+	if (CCT == null) return null;
 	const { start, end, interval } = REFERENCE_GRID;
-	const K = Math.round(CCT);
-	if (CCT < CRI_DAYLIGHT_FROM_K) return { spectrum: planckianSpectrum(CCT, start, end, interval), label: `Planckian radiator at ${K} K` };
-	return { spectrum: daylightSpectrum(CCT, start, end, interval), label: `CIE daylight at ${K} K` };
+	const ref = criReferenceSpectrum(CCT, start, end, interval);
+	if (!ref) return null;
+	return { spectrum: ref.spectrum, label: `${ref.kind === 'Planckian' ? 'Planckian radiator' : 'CIE daylight'} at ${Math.round(CCT)} K` };
 }
 
 /** The line for a setup's target white: its own spectrum where it has one, else the reference at its CCT. */
@@ -133,14 +131,6 @@ export async function readingDetail(access: ProjectAccess, readingId: number): P
 		target: target ? { label: target.label, x: target.x, y: target.y, tolerance: target.tolerance, CCT: target.CCT, Duv: target.Duv } : null,
 		lines
 	};
-}
-
-/** The product of the filters' transmissions on 380–780 nm at 1 nm (each held flat beyond its own range). */
-export function stackTransmission(stack: readonly Gel[]): Spectrum {
-	const n = 401;
-	const values = new Float64Array(n).fill(1);
-	for (const g of stack) for (let i = 0; i < n; i++) values[i] *= valueAt(g.transmission, 380 + i, 'hold');
-	return { start: 380, interval: 1, values, scale: 'relative' };
 }
 
 export interface LightSpectra {

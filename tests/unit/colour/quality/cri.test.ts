@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { cieIlluminant, type CieIlluminantName } from '../../../../src/lib/colour/illuminants/cie';
 import { planckianSpectrum } from '../../../../src/lib/colour/illuminants/planckian';
-import { colourRenderingIndex } from '../../../../src/lib/colour/quality/cri';
+import { colourRenderingIndex, criReferenceSpectrum } from '../../../../src/lib/colour/quality/cri';
+import { spectrumToXYZ, XYZToXy } from '../../../../src/lib/colour';
 import { alignSpectrum, SpectrumError } from '../../../../src/lib/colour/spectrum';
 import { gaussian, spectrumOf, whiteLed } from '../factories';
 
@@ -75,5 +76,26 @@ describe('CRI fast path', () => {
 				expect(Math.abs(fast.DC - direct.DC)).toBeLessThan(1e-10);
 			}
 		}
+	});
+});
+
+describe('criReferenceSpectrum', () => {
+	it('CIE 13.3-1995 §5.3: a Planckian radiator below 5000 K, CIE daylight from 5000 K', () => {
+		const warm = criReferenceSpectrum(3000)!;
+		expect(warm.kind).toBe('Planckian');
+		expect([...warm.spectrum.values]).toEqual([...planckianSpectrum(3000, 380, 780, 5).values]);
+		expect(criReferenceSpectrum(4999)!.kind).toBe('Planckian');
+		expect(criReferenceSpectrum(5000)!.kind).toBe('CIE daylight');
+	});
+
+	it('CIE 15:2004 Table T.3: the daylight reference at 6504 K has D65’s chromaticity (0.31272, 0.32903) within 2e-4', () => {
+		const xy = XYZToXy(spectrumToXYZ(criReferenceSpectrum(6504)!.spectrum));
+		expect(Math.abs(xy.x - 0.31272)).toBeLessThan(2e-4);
+		expect(Math.abs(xy.y - 0.32903)).toBeLessThan(2e-4);
+	});
+
+	it('none where CIE 13.3 has none: not a positive CCT, or above 25 000 K where CIE daylight ends', () => {
+		for (const k of [0, -10, Number.NaN, 25001]) expect(criReferenceSpectrum(k)).toBeNull();
+		expect(criReferenceSpectrum(25000)).not.toBeNull();
 	});
 });
